@@ -1,0 +1,20 @@
+/** `npm run check:ledger`: proves every stock level equals the sum of its ledger movements. */
+import { loadConfig } from '../server/config'
+import { createDataSource } from '../server/data-source'
+import { checkLedger } from '../server/services/ledger-check'
+
+const config = loadConfig()
+const ds = await createDataSource(config.DATABASE_PATH).initialize()
+const started = performance.now()
+const report = await checkLedger(ds)
+const ms = Math.round(performance.now() - started)
+await ds.destroy()
+
+console.log(`Checked ${report.lots} stock lots against ${report.movements} movements in ${ms} ms.`)
+for (const d of report.differences) {
+  console.log(`  lot ${d.lotId} (part ${d.partId}, bin ${d.binId}): recorded ${d.recorded}, ledger says ${d.fromLedger}`)
+}
+if (report.negativeLots) console.log(`  ${report.negativeLots} lot(s) below zero`)
+const clean = report.differences.length === 0 && report.negativeLots === 0
+console.log(clean ? 'Ledger reconciles.' : 'Ledger does NOT reconcile.')
+process.exit(clean ? 0 : 1)

@@ -1,0 +1,92 @@
+import express from 'express'
+import session from 'express-session'
+import helmet from 'helmet'
+import compression from 'compression'
+import { pinoHttp } from 'pino-http'
+import { csrfSync } from 'csrf-sync'
+import { existsSync } from 'node:fs'
+import { randomBytes } from 'node:crypto'
+import { join, resolve } from 'node:path'
+import type { Config } from './config'
+import { DatabaseSessionStore } from './middleware/session-store'
+import { configurePassport } from './middleware/auth'
+import { apiNotFound, errorHandler } from './middleware/error-handler'
+import { authRouter } from './routes/auth'
+import { usersRouter } from './routes/users'
+import { calcRouter } from './routes/calc'
+import { mountFeatureRouters } from './routes'
+import { AppError } from './errors'
+
+/** Session cookie lifetime: 12 hours, a long workshop day. */
+const SESSION_MAX_AGE_MS = 12 * 60 * 60 * 1000
+/** Hashed build assets never change under the same name, so browsers may keep them a year. */
+const ASSET_MAX_AGE = '365d'
+
+/** Builds the Express app without listening (tests call this with a temporary database). */
+export function createApp(config: Config) {
+  const app = express()
+  app.disable('x-powered-by')
+  if (config.HTTPS) app.set('trust proxy', 1)
+
+  app.use(helmet({
+    contentSecurityPolicy: {
+      directives: {
+        // Plain HTTP on a workshop LAN must not be upgraded to HTTPS that is not there.
+        upgradeInsecureRequests: null,
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        mediaSrc: ["'self'", 'blob:'],
+      },
+    },
+  }))
+  app.use(compression())
+  app.use(pinoHttp({ level: config.LOG_LEVEL, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
+  app.use(express.json({ limit: '1mb' }))
+
+  app.use(session({
+    name: 'binwright.sid',
+    secret: config.SESSION_SECRET ?? randomBytes(32).toString('hex'),
+    store: new DatabaseSessionStore(),
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: { httpOnly: true, sameSite: 'lax', secure: config.HTTPS, maxAge: SESSION_MAX_AGE_MS },
+  }))
+  const passport = configurePassport()
+  app.use(passport.session())
+
+  const { csrfSynchronisedProtection, generateToken } = csrfSync({
+    getTokenFromRequest: (req) => req.get('x-csrf-token'),
+    size: 32,
+    errorConfig: { statusCode: 403, code: 'CSRF', message: 'Missing or stale form token: reload the page and try again.' },
+  })
+  app.use('/api', (req, res, next) => {
+    csrfSynchronisedProtection(req, res, (err?: unknown) => {
+      if (err) return next(new AppError(403, 'CSRF_TOKEN', 'Missing or stale form token: reload the page and try again.'))
+      next()
+    })
+  })
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true })
+  })
+  app.use('/api/auth', authRouter(config, generateToken))
+  app.use('/api/users', usersRouter)
+  app.use('/api/calc', calcRouter)
+  mountFeatureRouters(app, config)
+  app.use('/api', apiNotFound)
+
+  serveClient(app)
+  app.use(errorHandler)
+  return app
+}
+
+/** Serves the built client (dist/client) with an SPA fallback, when it has been built. */
+function serveClient(app: express.Express) {
+  const dist = resolve('dist/client')
+  if (!existsSync(join(dist, 'index.html'))) return
+  app.use('/assets', express.static(join(dist, 'assets'), { immutable: true, maxAge: ASSET_MAX_AGE }))
+  app.use(express.static(dist, { index: false }))
+  app.get('/{*splat}', (_req, res) => {
+    res.set('Cache-Control', 'no-cache').sendFile(join(dist, 'index.html'))
+  })
+}

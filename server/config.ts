@@ -1,0 +1,43 @@
+import { z } from 'zod'
+
+/**
+ * Every setting the server reads from the environment, with its default.
+ * This is the only module that reads process.env.
+ */
+const envSchema = z.object({
+  /** Port for the API and the built client. */
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  /** Address to listen on. */
+  HOST: z.string().default('0.0.0.0'),
+  /** SQLite database file. */
+  DATABASE_PATH: z.string().default('data/binwright.sqlite'),
+  /** Where uploaded drawings and their thumbnails are kept. */
+  UPLOAD_DIR: z.string().default('uploads'),
+  /** Largest upload accepted, in megabytes. */
+  UPLOAD_MAX_MB: z.coerce.number().positive().default(20),
+  /** Secret that signs the session cookie; a random one is made per start when unset. */
+  SESSION_SECRET: z.string().min(16).optional(),
+  /** Base address printed in QR labels and e-mail links; defaults to this server's own address. */
+  PUBLIC_URL: z.string().url().optional(),
+  /** Set when the app is served over HTTPS (directly or behind a proxy): cookies become Secure. */
+  HTTPS: z.stringbool().default(false),
+  /** First admin on an empty database; a one-time password is printed when unset. */
+  ADMIN_USERNAME: z.string().default('admin'),
+  ADMIN_PASSWORD: z.string().min(8).optional(),
+  /** Load the invented demo scenario when the database is empty. */
+  DEMO_DATA: z.stringbool().default(true),
+  /** Sign-in attempts allowed per IP and username in LOGIN_WINDOW_MIN minutes. */
+  LOGIN_MAX_TRIES: z.coerce.number().int().positive().default(10),
+  LOGIN_WINDOW_MIN: z.coerce.number().positive().default(15),
+  /** pino log level: fatal, error, warn, info, debug, trace or silent. */
+  LOG_LEVEL: z.string().default('info'),
+})
+
+export type Config = z.infer<typeof envSchema> & { publicUrl: string }
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<Config> = {}): Config {
+  const parsed = envSchema.parse(env)
+  const merged = { ...parsed, ...overrides }
+  const publicUrl = merged.PUBLIC_URL ?? `http://localhost:${merged.PORT}`
+  return { ...merged, publicUrl: publicUrl.replace(/\/$/, '') }
+}

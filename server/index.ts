@@ -1,0 +1,33 @@
+/** Starts Binwright: database and migrations, first admin or demo data, then the web server. */
+import { loadConfig } from './config'
+import { openDatabase } from './database'
+import { createApp } from './app'
+import { ensureFirstAdmin } from './services/users'
+import { isEmpty, seedDemo } from '../seeds/demo'
+import { DEMO_USERS } from '../seeds/demo-users'
+
+const config = loadConfig()
+const ds = await openDatabase(config.DATABASE_PATH)
+
+if (config.DEMO_DATA && (await isEmpty(ds))) {
+  await seedDemo(ds)
+  console.log('Loaded the demo scenario (an invented club workshop). Demo sign-ins:')
+  for (const u of DEMO_USERS) console.log(`  ${u.role.padEnd(12)} ${u.username} / ${u.password}`)
+}
+const admin = await ensureFirstAdmin(config.ADMIN_USERNAME, config.ADMIN_PASSWORD)
+if (admin?.oneTimePassword) {
+  console.log(`First admin created: ${admin.username} / ${admin.oneTimePassword} (shown once: change it after signing in).`)
+}
+
+const app = createApp(config)
+const server = app.listen(config.PORT, config.HOST, () => {
+  const address = server.address()
+  const port = typeof address === 'object' && address ? address.port : config.PORT
+  console.log(`Binwright is running at http://localhost:${port} (database ${config.DATABASE_PATH})`)
+})
+
+const shutdown = () => {
+  server.close(() => void ds.destroy().then(() => process.exit(0)))
+}
+process.on('SIGINT', shutdown)
+process.on('SIGTERM', shutdown)

@@ -1,0 +1,4 @@
+import { InitialSchema1796178977775 } from './1796178977775-InitialSchema'
+
+/** Listed explicitly, in order, so tsx, vitest and the CLI run the same migrations. */
+export const migrations: Function[] = [InitialSchema1796178977775]
