@@ -1,0 +1,132 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { clientAs, clientFor, createTestApp } from '../helpers/app'
+
+let t: Awaited<ReturnType<typeof createTestApp>>
+beforeAll(async () => {
+  t = await createTestApp({ config: { LOGIN_MAX_TRIES: 3 } })
+})
+afterAll(() => t.close())
+
+describe('POST /api/auth/login', () => {
+  it('signs in with the right password and reports the user and role', async () => {
+    const c = await clientFor(t.app)
+    const res = await c.post('/api/auth/login', { username: 'keeper', password: 'brass-keeper-1' })
+    expect(res.status).toBe(200)
+    expect(res.body.user).toMatchObject({ username: 'keeper', role: 'storekeeper' })
+    expect(res.body.csrfToken).toMatch(/^[0-9a-f]{64}$/)
+    const cookie = String(res.headers['set-cookie'])
+    expect(cookie).toMatch(/binwright\.sid=/)
+    expect(cookie).toMatch(/HttpOnly/)
+    expect(cookie).toMatch(/SameSite=Lax/)
+  })
+
+  it('refuses a wrong password with 401 and the error shape', async () => {
+    const c = await clientFor(t.app)
+    const res = await c.post('/api/auth/login', { username: 'builder', password: 'not-the-password' })
+    expect(res.status).toBe(401)
+    expect(res.body).toEqual({ error: { code: 'BAD_CREDENTIALS', message: 'Username or password is not right.' } })
+  })
+
+  it('changes the session id at sign-in', async () => {
+    const c = await clientFor(t.app)
+    const before = await c.post('/api/auth/login', { username: 'nobody', password: 'x' })
+    expect(before.status).toBe(401)
+    const firstCookie = String((await c.get('/api/auth/session')).headers['set-cookie'] ?? '')
+    const res = await c.post('/api/auth/login', { username: 'viewer', password: 'brass-viewer-1' })
+    const secondCookie = String(res.headers['set-cookie'])
+    expect(secondCookie).toMatch(/binwright\.sid=/)
+    expect(secondCookie).not.toBe(firstCookie)
+  })
+
+  it('answers 429 after too many wrong passwords for one user', async () => {
+    const c = await clientFor(t.app)
+    const statuses: number[] = []
+    for (let i = 0; i < 4; i++) {
+      statuses.push((await c.post('/api/auth/login', { username: 'keeper', password: `wrong-${i}` })).status)
+    }
+    expect(statuses).toEqual([401, 401, 401, 429])
+    const blocked = await c.post('/api/auth/login', { username: 'keeper', password: 'brass-keeper-1' })
+    expect(blocked.status).toBe(429)
+    expect(blocked.body.error.code).toBe('TOO_MANY_TRIES')
+  })
+
+  it('refuses a sign-in without the CSRF token', async () => {
+    const res = await request(t.app).post('/api/auth/login').send({ username: 'keeper', password: 'brass-keeper-1' })
+    expect(res.status).toBe(403)
+    expect(res.body.error.code).toBe('CSRF_TOKEN')
+  })
+})
+
+describe('POST /api/auth/logout', () => {
+  it('ends the session on the server, so the old cookie no longer signs in', async () => {
+    const c = await clientAs(t.app, 'builder')
+    expect((await c.get('/api/auth/session')).body.user.username).toBe('builder')
+    expect((await c.post('/api/auth/logout')).status).toBe(204)
+    expect((await c.get('/api/auth/session')).body.user).toBeNull()
+  })
+})
+
+describe('/api/users', () => {
+  const newUser = { username: 'fitter2', displayName: 'A Fitter', role: 'builder', password: 'gland-nut-77' }
+
+  it('answers 401 to a signed-out request', async () => {
+    const c = await clientFor(t.app)
+    const res = await c.get('/api/users')
+    expect(res.status).toBe(401)
+    expect(res.body.error.code).toBe('SIGN_IN_REQUIRED')
+  })
+
+  it('refuses a viewer creating a user with 403', async () => {
+    const c = await clientAs(t.app, 'viewer')
+    const res = await c.post('/api/users', newUser)
+    expect(res.status).toBe(403)
+    expect(res.body.error.code).toBe('FORBIDDEN')
+  })
+
+  it('lets an admin create a user who can then sign in', async () => {
+    const c = await clientAs(t.app, 'admin')
+    const res = await c.post('/api/users', newUser)
+    expect(res.status).toBe(201)
+    expect(res.body).toMatchObject({ username: 'fitter2', role: 'builder', active: true })
+    expect(res.body).not.toHaveProperty('passwordHash')
+    const fitter = await clientFor(t.app, 'fitter2', 'gland-nut-77')
+    expect((await fitter.get('/api/auth/session')).body.user.role).toBe('builder')
+  })
+
+  it('refuses a body that breaks the schema with 400 naming each field', async () => {
+    const c = await clientAs(t.app, 'admin')
+    const res = await c.post('/api/users', { username: 'x', role: 'foreman', password: 'short' })
+    expect(res.status).toBe(400)
+    expect(res.body.error.code).toBe('INVALID_INPUT')
+    const paths = res.body.error.details.map((d: { path: string }) => d.path)
+    expect(paths).toEqual(expect.arrayContaining(['username', 'displayName', 'role', 'password']))
+  })
+
+  it('refuses malformed JSON with 400 MALFORMED_JSON', async () => {
+    const c = await clientAs(t.app, 'admin')
+    const res = await c.agent.post('/api/users').set('x-csrf-token', c.token)
+      .set('content-type', 'application/json').send('{"username": "oops",')
+    expect(res.status).toBe(400)
+    expect(res.body.error.code).toBe('MALFORMED_JSON')
+  })
+
+  it('stops a deactivated user signing in', async () => {
+    const admin = await clientAs(t.app, 'admin')
+    const list = await admin.get('/api/users')
+    const fitter = list.body.find((u: { username: string }) => u.username === 'fitter2')
+    expect((await admin.patch(`/api/users/${fitter.id}`, { active: false })).body.active).toBe(false)
+    await expect(clientFor(t.app, 'fitter2', 'gland-nut-77')).rejects.toThrow(/401/)
+  })
+})
+
+describe('POST /api/auth/password', () => {
+  it('changes one\'s own password after checking the current one', async () => {
+    const admin = await clientAs(t.app, 'admin')
+    await admin.post('/api/users', { username: 'apprentice', displayName: 'Apprentice', role: 'viewer', password: 'first-pass-1' })
+    const c = await clientFor(t.app, 'apprentice', 'first-pass-1')
+    expect((await c.post('/api/auth/password', { currentPassword: 'wrong', newPassword: 'second-pass-2' })).status).toBe(400)
+    expect((await c.post('/api/auth/password', { currentPassword: 'first-pass-1', newPassword: 'second-pass-2' })).status).toBe(204)
+    await expect(clientFor(t.app, 'apprentice', 'second-pass-2')).resolves.toBeTruthy()
+  })
+})

@@ -1,0 +1,2 @@
+// Tests never log requests and never reach a real mail server.
+process.env.LOG_LEVEL = 'silent'
