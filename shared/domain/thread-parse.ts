@@ -93,8 +93,8 @@ function parseInch(text: string): ThreadParse | null {
   const label = `${size}${size.startsWith('#') ? '' : '"'}`
   if (!found.length) {
     const what = [series ? `${series}` : 'UNC, UNF, ME, BSW or BSF', `thread is ${label}`, tpi ? `with ${tpi} tpi` : ''].join(' ')
-    const hint = { family: 'inch' as const, size: inchValue(size), pitchMm: tpi ? MM_PER_IN / tpi : undefined, series }
-    return fail(`No ${what.trim()}.`, suggestFromHint(hint))
+    const hints = sizes.map((s) => ({ family: 'inch' as const, size: inchValue(s), pitchMm: tpi ? MM_PER_IN / tpi : undefined, series }))
+    return fail(`No ${what.trim()}.`, suggestFromHint(hints))
   }
   if (tpi === undefined && found.length > 1) {
     const all = found.map(designationOf)

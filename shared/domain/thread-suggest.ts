@@ -35,11 +35,15 @@ function score(t: ThreadSpec, h: SuggestHint): number {
   return s
 }
 
-/** Ranks the catalogue against what could be read from the input. */
-export function suggestFromHint(h: SuggestHint, limit = SUGGESTION_COUNT): string[] {
-  const pool = THREAD_CATALOGUE.filter((t) => !h.family || familyOf(t) === h.family)
-  const ranked = pool
-    .map((t, i) => ({ d: designationOf(t), s: score(t, h), i }))
+/** Ranks the catalogue against what could be read from the input (several readings: the best counts). */
+export function suggestFromHint(hints: SuggestHint | SuggestHint[], limit = SUGGESTION_COUNT): string[] {
+  const all = Array.isArray(hints) ? hints : [hints]
+  const ranked = THREAD_CATALOGUE
+    .map((t, i) => {
+      const scores = all.filter((h) => !h.family || familyOf(t) === h.family).map((h) => score(t, h))
+      return { d: designationOf(t), s: scores.length ? Math.min(...scores) : Infinity, i }
+    })
+    .filter((r) => r.s < Infinity)
     .sort((a, b) => a.s - b.s || a.i - b.i)
   return [...new Set(ranked.map((r) => r.d))].slice(0, limit)
 }
