@@ -1,6 +1,7 @@
 import { IsNull, type EntityManager } from 'typeorm'
 import { Movement, StockLot } from '../entities'
 import { conflict } from '../errors'
+import { touchPart } from '../db'
 import type { MovementKind } from '../../shared/types/domain'
 
 /** Quantities are floats (bar lengths in mm); differences below this are rounding, not stock. */
@@ -26,6 +27,7 @@ export interface MovementInput {
  */
 export async function postMovement(tx: EntityManager, input: MovementInput): Promise<Movement> {
   if (!(input.quantity > 0)) throw new Error(`Movement quantity must be positive, got ${input.quantity}`)
+  touchPart(tx, input.partId)
   const lots = tx.getRepository(StockLot)
   let fromBinId: number | null = null
   let toBinId: number | null = null

@@ -1,0 +1,38 @@
+import express from 'express'
+import type { AddressInfo } from 'node:net'
+import { percentile, record } from '../harness'
+
+/** Requests made in each latency sample run. */
+const SAMPLES = 500
+
+/** Latency of GET `path` on an already listening server, sequential requests. */
+export async function latencies(baseUrl: string, path: string, n = SAMPLES, init?: RequestInit): Promise<number[]> {
+  const times: number[] = []
+  for (let i = 0; i < n; i++) {
+    const t0 = performance.now()
+    const res = await fetch(baseUrl + path, init)
+    await res.arrayBuffer()
+    times.push(performance.now() - t0)
+  }
+  return times
+}
+
+/** A bare Express JSON route: the baseline every route's figures are compared with. */
+export async function startBareServer() {
+  const app = express()
+  app.get('/bare', (_req, res) => { res.json({ ok: true }) })
+  const server = app.listen(0, '127.0.0.1')
+  await new Promise((r) => server.once('listening', r))
+  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }
+}
+
+export const baselineSuite = {
+  name: 'baseline: a bare Express JSON route',
+  async run() {
+    const bare = await startBareServer()
+    const t = await latencies(bare.url, '/bare')
+    record({ figure: 'bare Express JSON route p50', value: percentile(t, 50), unit: 'ms' })
+    record({ figure: 'bare Express JSON route p95', value: percentile(t, 95), unit: 'ms' })
+    bare.close()
+  },
+}
