@@ -75,14 +75,14 @@ export function createApp(config: Config) {
   mountFeatureRouters(app, config)
   app.use('/api', apiNotFound)
 
-  serveClient(app)
+  serveClient(app, config.CLIENT_DIR)
   app.use(errorHandler)
   return app
 }
 
-/** Serves the built client (dist/client) with an SPA fallback, when it has been built. */
-function serveClient(app: express.Express) {
-  const dist = resolve('dist/client')
+/** Serves the built client (CLIENT_DIR) with an SPA fallback, when it has been built. */
+function serveClient(app: express.Express, clientDir: string) {
+  const dist = resolve(clientDir)
   if (!existsSync(join(dist, 'index.html'))) return
   app.use('/assets', express.static(join(dist, 'assets'), { immutable: true, maxAge: ASSET_MAX_AGE }))
   app.use(express.static(dist, { index: false }))

@@ -29,6 +29,8 @@ const envSchema = z.object({
   /** Sign-in attempts allowed per IP and username in LOGIN_WINDOW_MIN minutes. */
   LOGIN_MAX_TRIES: z.coerce.number().int().positive().default(10),
   LOGIN_WINDOW_MIN: z.coerce.number().positive().default(15),
+  /** Folder of the built client (vite build's outDir). */
+  CLIENT_DIR: z.string().default('dist/client'),
   /** pino log level: fatal, error, warn, info, debug, trace or silent. */
   LOG_LEVEL: z.string().default('info'),
 })
