@@ -1,25 +1,32 @@
 import type { EntityManager } from 'typeorm'
-import { Bin, Part, StockLot, type Movement } from '../entities'
-import { badRequest, conflict, notFound } from '../errors'
+import { StockLot, type Movement } from '../entities'
+import { badRequest } from '../errors'
 import { inTransaction } from '../db'
 import { countLotFor, postMovement } from './ledger'
-import { receiveInput, type ReceiveInput } from '../../shared/schemas/stock'
+import { activePart, openBin } from './stock-guards'
+import { drawFromLots } from './stock-draw'
+import { adjustStock, batchLotFor, moveStock, returnToBin } from './stock-moves'
+import { countBin } from './stock-count'
+import { reverseMovement } from './stock-reverse'
+import { toMovementDtos } from './movements'
+import {
+  adjustInput, countInput, moveInput, receiveInput, returnInput, reverseInput, takeInput,
+  type AdjustInput, type CountInput, type MoveInput, type ReceiveInput, type ReturnInput, type ReverseInput, type TakeInput,
+} from '../../shared/schemas/stock'
 import { stockModeOf } from '../../shared/types/domain'
+import type { Role } from '../../shared/types/api'
+import type { StockResultDto } from '../../shared/types/stock'
 
-/** A bin that exists and takes stock (not retired), read inside the transaction. */
-export async function openBin(tx: EntityManager, binId: number): Promise<Bin> {
-  const bin = await tx.findOneBy(Bin, { id: binId })
-  if (!bin) throw notFound('The bin')
-  if (bin.retired) throw conflict('BIN_RETIRED', `Bin ${bin.code} is retired and takes no stock.`)
-  return bin
-}
-
-export async function activePart(tx: EntityManager, partId: number): Promise<Part> {
-  const part = await tx.findOneBy(Part, { id: partId })
-  if (!part) throw notFound('The part')
-  if (part.archived) throw conflict('PART_ARCHIVED', `${part.code} is archived; restore it before moving stock.`)
-  return part
-}
+/*
+ * The stock service: every change goes through postMovement inside inTransaction. The
+ * functions taking `tx` are for other services to call inside their own transactions
+ * (builds draw with drawFromLots, orders receive with receiveInto, the bin page counts …).
+ */
+export { openBin, activePart } from './stock-guards'
+export { drawFromLots, type DrawInput } from './stock-draw'
+export { returnToBin, moveStock, adjustStock, type ReturnToBinInput, type MoveStockInput, type AdjustStockInput } from './stock-moves'
+export { countBin, type CountBinInput, type CountLine } from './stock-count'
+export { reverseMovement } from './stock-reverse'
 
 /**
  * Receives stock into a bin inside the caller's transaction: one movement per counted
@@ -43,9 +50,7 @@ export async function receiveInto(tx: EntityManager, raw: ReceiveInput, userId: 
   let lot: StockLot
   if (mode === 'batch') {
     if (!input.expiresOn) throw badRequest('EXPIRY_REQUIRED', `${part.code} is kept by batch: give the expiry date.`)
-    const batchCode = input.batchCode || `${input.expiresOn}`
-    lot = (await tx.findOneBy(StockLot, { partId: part.id, binId: input.binId, batchCode, expiresOn: input.expiresOn }))
-      ?? await tx.save(StockLot, { partId: part.id, binId: input.binId, quantity: 0, batchCode, expiresOn: input.expiresOn })
+    lot = await batchLotFor(tx, part.id, input.binId, input.batchCode || `${input.expiresOn}`, input.expiresOn)
   } else {
     if (!Number.isInteger(input.quantity)) throw badRequest('WHOLE_ITEMS', `${part.code} is counted in whole items.`)
     lot = await countLotFor(tx, part.id, input.binId)
@@ -53,6 +58,50 @@ export async function receiveInto(tx: EntityManager, raw: ReceiveInput, userId: 
   return [await postMovement(tx, { kind: 'receive', partId: part.id, quantity: input.quantity, toLotId: lot.id, ...link })]
 }
 
+/** The acting user as routes know it. */
+export interface Actor {
+  id: number
+  role: Role
+}
+
+/** Runs one stock change in its own transaction and answers with the ledger rows it wrote. */
+async function recorded(work: (tx: EntityManager) => Promise<Movement | Movement[]>): Promise<StockResultDto> {
+  const result = await inTransaction(work)
+  return { movements: await toMovementDtos(Array.isArray(result) ? result : [result]) }
+}
+
 /** POST /api/stock/receive: one transaction, all or nothing. */
 export const receiveStock = (raw: ReceiveInput, userId: number) =>
   inTransaction((tx) => receiveInto(tx, raw, userId))
+
+export const receiveStockDto = (raw: ReceiveInput, actor: Actor) => recorded((tx) => receiveInto(tx, raw, actor.id))
+
+export const takeStock = (raw: TakeInput, actor: Actor) => {
+  const input = takeInput.parse(raw)
+  return recorded((tx) => drawFromLots(tx, { ...input, userId: actor.id, role: actor.role }))
+}
+
+export const returnStock = (raw: ReturnInput, actor: Actor) => {
+  const input = returnInput.parse(raw)
+  return recorded((tx) => returnToBin(tx, { ...input, userId: actor.id }))
+}
+
+export const moveStockBetweenBins = (raw: MoveInput, actor: Actor) => {
+  const input = moveInput.parse(raw)
+  return recorded((tx) => moveStock(tx, { ...input, userId: actor.id }))
+}
+
+export const adjustStockLot = (raw: AdjustInput, actor: Actor) => {
+  const input = adjustInput.parse(raw)
+  return recorded((tx) => adjustStock(tx, { ...input, userId: actor.id }))
+}
+
+export const countStock = (raw: CountInput, actor: Actor) => {
+  const input = countInput.parse(raw)
+  return recorded((tx) => countBin(tx, { ...input, userId: actor.id }))
+}
+
+export const reverseStockMovement = (id: number, raw: ReverseInput, actor: Actor) => {
+  const input = reverseInput.parse(raw)
+  return recorded((tx) => reverseMovement(tx, id, actor.id, input.reason))
+}
