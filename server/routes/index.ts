@@ -1,5 +1,11 @@
 import type { Express } from 'express'
 import type { Config } from '../config'
+import { binsRouter, racksRouter, workshopsRouter } from './bins'
+import { stockRouter } from './stock'
+import { movementsRouter } from './movements'
+import { suppliersRouter } from './suppliers'
+import { reorderRouter } from './reorder'
+import { attachmentsRouter } from './attachments'
 import { reservationsRouter } from './reservations'
 
 /**
@@ -7,7 +13,15 @@ import { reservationsRouter } from './reservations'
  * Each feature adds one line here: app.use('/api/<resource>', <resource>Router).
  */
 export function mountFeatureRouters(app: Express, config: Config) {
+  app.use('/api/bins', binsRouter)
+  app.use('/api/racks', racksRouter)
+  app.use('/api/workshops', workshopsRouter)
+  app.use('/api/stock', stockRouter)
+  app.use('/api/movements', movementsRouter)
+  app.use('/api/attachments', attachmentsRouter(config))
   app.use('/api/reservations', reservationsRouter)
+  app.use('/api/suppliers', suppliersRouter)
+  app.use('/api/parts', reorderRouter)
   void app
   void config
 }

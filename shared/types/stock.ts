@@ -56,6 +56,17 @@ export interface WorkshopNodeDto {
   name: string
   racks: RackNodeDto[]
 }
+export interface RackDto {
+  id: number
+  code: string
+  name: string
+  workshopId: number
+}
+export interface WorkshopDto {
+  id: number
+  name: string
+}
+
 export interface PlaceTreeDto {
   workshops: WorkshopNodeDto[]
 }
