@@ -22,8 +22,11 @@ export const MAX_FACING_MM = 20
 export const MAX_STOCK_PIECES = 200
 export const MAX_CUT_PIECES = 2000
 
-/** Query strings give text; blanks count as "not given". */
-const toNumber = (v: unknown) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim())) : v)
+/** Query strings give text, cleared form inputs give null; blanks and nulls count as "not given". */
+const toNumber = (v: unknown) => {
+  if (v === null) return undefined
+  return typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim())) : v
+}
 
 interface NumberRule {
   unit?: string

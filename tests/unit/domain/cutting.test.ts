@@ -104,7 +104,10 @@ describe('cutting list with kerf (reference §7 [F][CP])', () => {
     for (let n = 0; n < 400; n++) {
       const stock = Array.from({ length: 1 + Math.floor(rand() * 3) }, (_, i) => ({ id: `s${i}`, lengthMm: pick([150, 300, 450, 600, 1000]) + Math.floor(rand() * 50) }))
       const cuts = Array.from({ length: 1 + Math.floor(rand() * 3) }, (_, i) => ({ label: `c${i}`, lengthMm: 20 + Math.floor(rand() * 400), qty: 1 + Math.floor(rand() * 3) }))
-      while (cuts.reduce((t, c) => t + c.qty, 0) > 7) cuts[0].qty > 1 ? cuts[0].qty-- : cuts.pop()
+      while (cuts.reduce((t, c) => t + c.qty, 0) > 7) {
+        if (cuts[0].qty > 1) cuts[0].qty--
+        else cuts.pop()
+      }
       const input = { stock, cuts, kerfMm: pick([0, 1, 1.5, 2.5]), facingMm: pick([0, 0.5, 1]) }
       const r = planCuts(input)
       const best = bruteForce(input)
