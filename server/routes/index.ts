@@ -3,9 +3,6 @@ import type { Config } from '../config'
 import { binsRouter, racksRouter, workshopsRouter } from './bins'
 import { stockRouter } from './stock'
 import { movementsRouter } from './movements'
-import { suppliersRouter } from './suppliers'
-import { reorderRouter } from './reorder'
-import { attachmentsRouter } from './attachments'
 import { reservationsRouter } from './reservations'
 
 /**
@@ -18,10 +15,7 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/workshops', workshopsRouter)
   app.use('/api/stock', stockRouter)
   app.use('/api/movements', movementsRouter)
-  app.use('/api/attachments', attachmentsRouter(config))
   app.use('/api/reservations', reservationsRouter)
-  app.use('/api/suppliers', suppliersRouter)
-  app.use('/api/parts', reorderRouter)
   void app
   void config
 }
