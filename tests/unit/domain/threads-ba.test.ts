@@ -63,6 +63,12 @@ describe('BA threads (BS 93)', () => {
     expect(thread('8BA').minorDiameterMm).toBe(1.684)
   })
 
+  it('takes tpi as 25.4/p from the metric pitch: 10BA is 72.6, not 72.46 from a rounded inch pitch (reference §10)', () => {
+    expect(thread('10BA').tpi).toBe(72.6)
+    // The inch diameter is mm/25.4 to 0.0001 in; tables vary in the last digit (0.0669/0.0670, 0.0511/0.0512).
+    expect(Number((thread('10BA').majorDiameterMm / 25.4).toFixed(4))).toBe(0.0669)
+  })
+
   it('keeps 0.81 mm as the 2BA pitch, not the 0.89 mm a forum post gives (BS 93, reference §10)', () => {
     const t = thread('2BA')
     expect(t.pitchMm).toBe(0.81)
