@@ -29,10 +29,27 @@ const envSchema = z.object({
   /** Sign-in attempts allowed per IP and username in LOGIN_WINDOW_MIN minutes. */
   LOGIN_MAX_TRIES: z.coerce.number().int().positive().default(10),
   LOGIN_WINDOW_MIN: z.coerce.number().positive().default(15),
+  /** Where scheduled daily backups go, and how many of them are kept. */
+  BACKUP_DIR: z.string().default('data/backups'),
+  BACKUP_KEEP: z.coerce.number().int().min(1).max(365).default(7),
   /** Folder of the built client (vite build's outDir). */
   CLIENT_DIR: z.string().default('dist/client'),
   /** pino log level: fatal, error, warn, info, debug, trace or silent. */
   LOG_LEVEL: z.string().default('info'),
+  /** SMTP server for alert digests and purchase orders; unset: a local fake server captures mail. */
+  SMTP_HOST: z.string().optional(),
+  /** 587 is the mail-submission port (RFC 6409); 465 means TLS from the first byte. */
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  /** Sender of every message, e.g. "Club stores <stores@example.org>". */
+  SMTP_FROM: z.string().default('Binwright stores <binwright@localhost>'),
+  /** Comma-separated digest recipients; unset: every active storekeeper with an e-mail address. */
+  ALERT_RECIPIENTS: z.string().optional(),
+  /** Local hour (0–23) the daily alert digest goes out. */
+  DIGEST_HOUR: z.coerce.number().int().min(0).max(23).default(7),
+  /** Batches expiring within this many days raise an "expiring" alert (shelf-life note: warn at 30/60 days). */
+  EXPIRY_WARNING_DAYS: z.coerce.number().int().min(0).max(3650).default(30),
 })
 
 export type Config = z.infer<typeof envSchema> & { publicUrl: string }

@@ -4,6 +4,8 @@ import { binsRouter, racksRouter, workshopsRouter } from './bins'
 import { stockRouter } from './stock'
 import { movementsRouter } from './movements'
 import { reservationsRouter } from './reservations'
+import { suppliersRouter } from './suppliers'
+import { reorderRouter } from './reorder'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -16,6 +18,8 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/stock', stockRouter)
   app.use('/api/movements', movementsRouter)
   app.use('/api/reservations', reservationsRouter)
+  app.use('/api/suppliers', suppliersRouter)
+  app.use('/api/parts', reorderRouter)
   void app
   void config
 }
