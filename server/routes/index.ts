@@ -6,6 +6,7 @@ import { movementsRouter } from './movements'
 import { reservationsRouter } from './reservations'
 import { suppliersRouter } from './suppliers'
 import { reorderRouter } from './reorder'
+import { attachmentsRouter } from './attachments'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -17,6 +18,7 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/workshops', workshopsRouter)
   app.use('/api/stock', stockRouter)
   app.use('/api/movements', movementsRouter)
+  app.use('/api/attachments', attachmentsRouter(config))
   app.use('/api/reservations', reservationsRouter)
   app.use('/api/suppliers', suppliersRouter)
   app.use('/api/parts', reorderRouter)
