@@ -13,6 +13,7 @@ import { configurePassport } from './middleware/auth'
 import { apiNotFound, errorHandler } from './middleware/error-handler'
 import { authRouter } from './routes/auth'
 import { usersRouter } from './routes/users'
+import { adminRouter } from './routes/admin'
 import { calcRouter } from './routes/calc'
 import { mountFeatureRouters } from './routes'
 import { AppError } from './errors'
@@ -71,6 +72,7 @@ export function createApp(config: Config) {
   })
   app.use('/api/auth', authRouter(config, generateToken))
   app.use('/api/users', usersRouter)
+  app.use('/api/admin', adminRouter(config))
   app.use('/api/calc', calcRouter)
   mountFeatureRouters(app, config)
   app.use('/api', apiNotFound)

@@ -3,6 +3,7 @@ import { loadConfig } from './config'
 import { openDatabase } from './database'
 import { createApp } from './app'
 import { ensureFirstAdmin } from './services/users'
+import { scheduleDailyBackups } from './services/backup'
 import { isEmpty, seedDemo } from '../seeds/demo'
 import { DEMO_USERS } from '../seeds/demo-users'
 
@@ -18,6 +19,8 @@ const admin = await ensureFirstAdmin(config.ADMIN_USERNAME, config.ADMIN_PASSWOR
 if (admin?.oneTimePassword) {
   console.log(`First admin created: ${admin.username} / ${admin.oneTimePassword} (shown once: change it after signing in).`)
 }
+
+scheduleDailyBackups(config.BACKUP_DIR, config.BACKUP_KEEP, (msg) => console.log(msg))
 
 const app = createApp(config)
 const server = app.listen(config.PORT, config.HOST, () => {
