@@ -44,6 +44,7 @@ export const thumbName = (storedName: string, mime: string, width: number) =>
 export const thumbMime = (mime: string) => (mime === 'image/jpeg' ? 'image/jpeg' : 'image/png')
 
 /** Control characters, and bidi overrides that can make "gpj.exe" read as "exe.jpg". */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const UNSAFE_CHARS = /[\u0000-\u001f\u007f-\u009f\u200e\u200f\u202a-\u202e\u2066-\u2069]/g
 
 /**
