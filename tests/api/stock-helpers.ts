@@ -31,3 +31,10 @@ export async function lotsIn(ds: DataSource, partId: number, binId: number) {
 
 export const lastMovement = (ds: DataSource) =>
   ds.getRepository(Movement).find({ order: { id: 'DESC' }, take: 1 }).then((m) => m[0])
+
+/** A demo part by words of its name (codes are suggested by the parts feature and may change). */
+export const partNamed = async (ds: DataSource, words: string) => {
+  const part = (await ds.getRepository(Part).find()).find((p) => p.name.startsWith(words))
+  if (!part) throw new Error(`no demo part named ${words}`)
+  return part
+}
