@@ -61,4 +61,7 @@ export const DEMO_CATALOGUE: DemoStock[] = [
   { part: { name: 'Cutting fluid, 500 ml', attributes: { kind: 'compound', grade: 'neat cutting oil', containerSize: '500 ml' }, unitCost: 6.0, unit: 'bottle' }, stock: [{ bin: 'C1-04', quantity: 1, batchCode: 'CF-25', expiresInDays: 940 }] },
   { part: { name: 'PTFE thread-seal tape, 12 mm', attributes: { kind: 'other', properties: { width: '12 mm', length: '12 m' } }, unit: 'reel', unitCost: 0.6 }, stock: [{ bin: 'C1-05', quantity: 8 }] },
   { part: { name: 'Whistle valve body casting, gunmetal', attributes: { kind: 'other', properties: { material: 'gunmetal LG2', use: 'boiler fitting' } }, pressureBearing: true, unitCost: 12 }, stock: [{ bin: 'C1-06', quantity: 2 }] },
+  // Parts search examples ('1/4 unc', '3/8 round bms'): catalogued, none in stock yet, no reorder point.
+  { part: { name: '1/4-20 UNC hex bolt 1 in, stainless 304', attributes: { kind: 'fastener', type: 'bolt', thread: '1/4-20 UNC', lengthMm: 25.4, material: 'stainless 304', head: 'hex' }, unitCost: 0.35 }, stock: [] },
+  { part: bar('bright mild steel', 'round', 9.525), stock: [] },
 ]

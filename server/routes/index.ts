@@ -7,6 +7,7 @@ import { reservationsRouter } from './reservations'
 import { suppliersRouter } from './suppliers'
 import { reorderRouter } from './reorder'
 import { attachmentsRouter } from './attachments'
+import { partsRouter, stockLevelsRouter } from './parts'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -22,6 +23,8 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/reservations', reservationsRouter)
   app.use('/api/suppliers', suppliersRouter)
   app.use('/api/parts', reorderRouter)
+  app.use('/api/parts', partsRouter)
+  app.use('/api/stock-levels', stockLevelsRouter)
   void app
   void config
 }

@@ -11,6 +11,8 @@ interface MaterialEntry {
   canonical: string
   /** What people type for it, in any case; multi-word forms allowed. */
   synonyms: string[]
+  /** Short form used in suggested part codes ("7BA-STUD-12-BR"): the trade abbreviation. */
+  code: string
   /** A grade that may follow and is kept with it: "stainless 303", "gunmetal lg2". */
   grade?: RegExp
 }
@@ -21,21 +23,21 @@ interface MaterialEntry {
  * "ss" is read as stainless, as most stores lists do; silver steel is always written out.
  */
 export const MATERIAL_SYNONYMS: readonly MaterialEntry[] = [
-  { canonical: 'mild steel', synonyms: ['mild steel', 'bright mild steel', 'bright mild', 'bms', 'ms', 'en1a', 'en3'] },
-  { canonical: 'stainless', synonyms: ['stainless steel', 'stainless', 'ss', 's/s', 'stst'], grade: /^(30[34]|316l?|a2|a4)$/ },
-  { canonical: 'silver steel', synonyms: ['silver steel'] },
-  { canonical: 'phosphor bronze', synonyms: ['phosphor bronze', 'phos bronze', 'phosphor-bronze', 'pb', 'pb102', 'pb1'] },
-  { canonical: 'gunmetal', synonyms: ['gunmetal', 'gun metal', 'gm'], grade: /^lg[24]$/ },
-  { canonical: 'bronze', synonyms: ['bronze'] },
-  { canonical: 'brass', synonyms: ['brass'], grade: /^cz1\d\d$/ },
-  { canonical: 'copper', synonyms: ['copper', 'cu'] },
-  { canonical: 'aluminium', synonyms: ['aluminium', 'aluminum', 'alu', 'ally', 'dural'] },
-  { canonical: 'cast iron', synonyms: ['cast iron', 'ci'] },
-  { canonical: 'gauge plate', synonyms: ['gauge plate', 'ground flat stock'] },
-  { canonical: 'compressed fibre', synonyms: ['compressed fibre', 'compressed fiber'] },
-  { canonical: 'gasket paper', synonyms: ['gasket paper'] },
-  { canonical: 'ptfe', synonyms: ['ptfe'] },
-  { canonical: 'nylon', synonyms: ['nylon'] },
+  { canonical: 'mild steel', code: 'MS', synonyms: ['mild steel', 'bright mild steel', 'bright mild', 'bms', 'ms', 'en1a', 'en3'] },
+  { canonical: 'stainless', code: 'SS', synonyms: ['stainless steel', 'stainless', 'ss', 's/s', 'stst'], grade: /^(30[34]|316l?|a2|a4)$/ },
+  { canonical: 'silver steel', code: 'SILV', synonyms: ['silver steel'] },
+  { canonical: 'phosphor bronze', code: 'PB', synonyms: ['phosphor bronze', 'phos bronze', 'phosphor-bronze', 'pb', 'pb102', 'pb1'] },
+  { canonical: 'gunmetal', code: 'GM', synonyms: ['gunmetal', 'gun metal', 'gm'], grade: /^lg[24]$/ },
+  { canonical: 'bronze', code: 'BRZ', synonyms: ['bronze'] },
+  { canonical: 'brass', code: 'BR', synonyms: ['brass'], grade: /^cz1\d\d$/ },
+  { canonical: 'copper', code: 'CU', synonyms: ['copper', 'cu'] },
+  { canonical: 'aluminium', code: 'AL', synonyms: ['aluminium', 'aluminum', 'alu', 'ally', 'dural'] },
+  { canonical: 'cast iron', code: 'CI', synonyms: ['cast iron', 'ci'] },
+  { canonical: 'gauge plate', code: 'GP', synonyms: ['gauge plate', 'ground flat stock'] },
+  { canonical: 'compressed fibre', code: 'FIB', synonyms: ['compressed fibre', 'compressed fiber'] },
+  { canonical: 'gasket paper', code: 'PAP', synonyms: ['gasket paper'] },
+  { canonical: 'ptfe', code: 'PTFE', synonyms: ['ptfe'] },
+  { canonical: 'nylon', code: 'NYL', synonyms: ['nylon'] },
 ]
 
 /** Fastener types, with the plural and variant spellings people type. */
@@ -94,6 +96,18 @@ export function canonicalMaterial(text: string): string {
     if (hit) return m.canonical + s.slice(hit[0].length)
   }
   return s
+}
+
+/**
+ * The short form of a material for part codes: "stainless 303" → "SS303", "brass" → "BR";
+ * a material not in the table gives its first three letters.
+ */
+export function materialCode(material: string): string {
+  const canonical = canonicalMaterial(material)
+  const m = MATERIAL_SYNONYMS.find((e) => canonical === e.canonical || new RegExp(`^${escape(e.canonical)}\\b`).test(canonical))
+  if (!m) return canonical.replace(/[^a-z0-9]/g, '').slice(0, 3).toUpperCase()
+  const grade = canonical.slice(m.canonical.length).trim().split(/[\s,]/)[0]
+  return m.grade?.test(grade) ? `${m.code}${grade.toUpperCase()}` : m.code
 }
 
 /** Shortest word we correct, and shortest we correct to: below this one typo too often makes another real word (coil → oil). */

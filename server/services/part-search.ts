@@ -1,0 +1,117 @@
+import Fuse from 'fuse.js'
+import { In, type SelectQueryBuilder } from 'typeorm'
+import { Part } from '../entities'
+import { db } from '../db'
+import { searchIndex, textCandidates, type IndexedPart } from './part-search-index'
+import { toPartSummaries } from './part-summaries'
+import { parsePartQuery, type PartQuery } from '../../shared/domain/part-query'
+import { partListQuery, type PartListQuery } from '../../shared/schemas/part-list'
+import type { PartSearchPage } from '../../shared/types/part'
+
+/**
+ * Sizes within 1 % are the same stock under either unit: 3/8" (9.525 mm) bar is listed as
+ * 9.5 mm, 1/4" (6.35 mm) hex as 6.3 mm. The floor covers gasket thicknesses like 0.4 mm.
+ */
+const SIZE_TOLERANCE = 0.01
+const MIN_SIZE_TOLERANCE_MM = 0.005
+/** Most candidates ranked with fuse.js in one search; past this the word-match order decides. */
+const RANK_LIMIT = 1500
+/** fuse.js: 0 is an exact match, 1 anything; 0.45 keeps one- and two-letter slips. */
+const FUSE_THRESHOLD = 0.45
+/** fuse.js key weights: a part is named for what it is; codes and tags help. */
+const FUSE_KEYS = [{ name: 'name', weight: 2 }, { name: 'code', weight: 1.5 }, { name: 'tags', weight: 1 }]
+/** Above every string a material column holds (used for prefix ranges that can use the index). */
+const PREFIX_END = '\uffff'
+
+const tolerance = (mm: number) => Math.max(mm * SIZE_TOLERANCE, MIN_SIZE_TOLERANCE_MM)
+
+/** Adds the parsed query's filters to the query builder: indexed columns only. */
+function applyFilters(qb: SelectQueryBuilder<Part>, q: PartQuery, kind?: string, includeArchived = false) {
+  if (!includeArchived) qb.andWhere('p.archived = :archived', { archived: false })
+  if (kind) qb.andWhere('p.kind = :kind', { kind })
+  if (q.kind) qb.andWhere('p.kind = :qkind', { qkind: q.kind })
+  if (q.form) qb.andWhere('p.form = :form', { form: q.form })
+  if (q.threadKey) qb.andWhere('p.threadKey = :threadKey', { threadKey: q.threadKey })
+  if (q.material) qb.andWhere('p.material >= :mat AND p.material < :matEnd', { mat: q.material, matEnd: q.material + PREFIX_END })
+  if (q.lengthMm !== undefined) {
+    qb.andWhere('p.lengthMm BETWEEN :lenLo AND :lenHi', { lenLo: q.lengthMm - tolerance(q.lengthMm), lenHi: q.lengthMm + tolerance(q.lengthMm) })
+  }
+  const size = q.sizeMm === undefined ? undefined : 'p.sizeMm BETWEEN :sizeLo AND :sizeHi'
+  // "threadKey >= '1/4-' AND < '1/4.'" is every thread of that size ('.' follows '-').
+  const thread = q.threadSize ? 'p.threadKey >= :tsLo AND p.threadKey < :tsHi' : undefined
+  const params = {
+    sizeLo: (q.sizeMm ?? 0) - tolerance(q.sizeMm ?? 0), sizeHi: (q.sizeMm ?? 0) + tolerance(q.sizeMm ?? 0),
+    tsLo: `${q.threadSize}-`, tsHi: `${q.threadSize}.`,
+  }
+  if (size && thread) qb.andWhere(`((${size}) OR (${thread}))`, params)
+  else if (size || thread) qb.andWhere(size ?? thread!, params)
+}
+
+const hasFilters = (q: PartQuery, kind?: string) =>
+  Boolean(kind || q.kind || q.form || q.threadKey || q.threadSize || q.material || q.lengthMm !== undefined || q.sizeMm !== undefined)
+
+/** Orders candidates: fuse.js score over name, code and tags, then the word-match score, then code. */
+function rank(candidates: Map<number, number>, parts: Map<number, IndexedPart>, text: string): number[] {
+  let ids = [...candidates.keys()]
+  if (ids.length > RANK_LIMIT) ids = ids.sort((a, b) => candidates.get(b)! - candidates.get(a)!).slice(0, RANK_LIMIT)
+  const items = ids.map((id) => parts.get(id)!).filter(Boolean)
+  const fuse = new Fuse(items, { keys: FUSE_KEYS, includeScore: true, ignoreLocation: true, threshold: FUSE_THRESHOLD })
+  const fuseScore = new Map(fuse.search(text).map((r) => [r.item.id, r.score ?? 1]))
+  const score = (id: number) => (fuseScore.get(id) ?? 1) - candidates.get(id)! / 10
+  return items.sort((a, b) => score(a.id) - score(b.id) || a.code.localeCompare(b.code)).map((p) => p.id)
+}
+
+/** An exact part code or label code (a scanned QR typed into the box) finds that part alone. */
+async function exactMatch(raw: string, includeArchived: boolean): Promise<Part | null> {
+  const token = raw.trim().toUpperCase()
+  if (!token || /\s/.test(token)) return null
+  const part = await db().getRepository(Part).findOne({ where: [{ code: token }, { labelCode: token }] })
+  return part && (includeArchived || !part.archived) ? part : null
+}
+
+/**
+ * GET /api/parts: filters on indexed columns first, then ranks the candidates by the leftover
+ * words with fuse.js, then paginates. With filters the words only rank (so "hex nut m4" still
+ * lists every M4 nut, hex-named first); without filters the words choose the candidates.
+ */
+export async function searchParts(raw: PartListQuery): Promise<PartSearchPage> {
+  const p = partListQuery.parse(raw)
+  const understood = parsePartQuery(p.q)
+  const page = (items: Part[], total: number) =>
+    toPartSummaries(items).then((summaries) => ({ items: summaries, total, page: p.page, pageSize: p.pageSize, understood }))
+  const exact = await exactMatch(p.q, p.includeArchived)
+  if (exact && (!p.kind || exact.kind === p.kind)) return page([exact], 1)
+
+  const qb = db().getRepository(Part).createQueryBuilder('p')
+  applyFilters(qb, understood, p.kind, p.includeArchived)
+  const skip = (p.page - 1) * p.pageSize
+  if (!understood.text) {
+    const [items, total] = await qb.orderBy('p.code', 'ASC').skip(skip).take(p.pageSize).getManyAndCount()
+    return page(items, total)
+  }
+  const ix = await searchIndex()
+  const candidates = textCandidates(ix, understood.text)
+  let ordered: number[]
+  if (hasFilters(understood, p.kind)) {
+    const filtered: { id: number }[] = await qb.select('p.id', 'id').orderBy('p.code', 'ASC').getRawMany()
+    const inText = new Map(filtered.filter((r) => candidates.has(r.id)).map((r) => [r.id, candidates.get(r.id)!]))
+    const ranked = rank(inText, ix.parts, understood.text)
+    ordered = [...ranked, ...filtered.map((r) => r.id).filter((id) => !inText.has(id))]
+  } else {
+    const live = p.includeArchived ? candidates : await withoutArchived(candidates)
+    ordered = rank(live, ix.parts, understood.text)
+  }
+  const ids = ordered.slice(skip, skip + p.pageSize)
+  const rows = ids.length ? await db().getRepository(Part).findBy({ id: In(ids) }) : []
+  const byId = new Map(rows.map((r) => [r.id, r]))
+  return page(ids.map((id) => byId.get(id)!).filter(Boolean), ordered.length)
+}
+
+/** Drops archived parts from text candidates (the in-memory index holds every part). */
+async function withoutArchived(candidates: Map<number, number>): Promise<Map<number, number>> {
+  if (!candidates.size) return candidates
+  const archived: { id: number }[] = await db().getRepository(Part).createQueryBuilder('p')
+    .select('p.id', 'id').where('p.archived = :a', { a: true }).getRawMany()
+  for (const { id } of archived) candidates.delete(id)
+  return candidates
+}
