@@ -89,6 +89,7 @@ function serveClient(app: express.Express, clientDir: string) {
   app.use('/assets', express.static(join(dist, 'assets'), { immutable: true, maxAge: ASSET_MAX_AGE }))
   app.use(express.static(dist, { index: false }))
   app.get('/{*splat}', (_req, res) => {
-    res.set('Cache-Control', 'no-cache').sendFile(join(dist, 'index.html'))
+    // root + relative name: send refuses dot-folders only below the root, so a CLIENT_DIR under .tmp/ works.
+    res.set('Cache-Control', 'no-cache').sendFile('index.html', { root: dist })
   })
 }
