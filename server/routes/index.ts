@@ -4,6 +4,7 @@ import { binsRouter, racksRouter, workshopsRouter } from './bins'
 import { stockRouter } from './stock'
 import { movementsRouter } from './movements'
 import { reservationsRouter } from './reservations'
+import { buildsRouter, shortagesRouter } from './builds'
 import { suppliersRouter } from './suppliers'
 import { reorderRouter } from './reorder'
 import { attachmentsRouter } from './attachments'
@@ -21,6 +22,8 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/movements', movementsRouter)
   app.use('/api/attachments', attachmentsRouter(config))
   app.use('/api/reservations', reservationsRouter)
+  app.use('/api/builds', buildsRouter)
+  app.use('/api/shortages', shortagesRouter)
   app.use('/api/suppliers', suppliersRouter)
   app.use('/api/parts', reorderRouter)
   app.use('/api/parts', partsRouter)

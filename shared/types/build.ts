@@ -154,3 +154,10 @@ export interface BomImportResultDto {
   added: number
   applied: boolean
 }
+
+export interface CopyLinesResultDto {
+  copied: number
+  /** Codes of archived parts whose lines were not copied. */
+  skipped: string[]
+  build: BuildDetailDto
+}
