@@ -6,8 +6,10 @@ import { ensureFirstAdmin } from './services/users'
 import { scheduleDailyBackups } from './services/backup'
 import { isEmpty, seedDemo } from '../seeds/demo'
 import { DEMO_USERS } from '../seeds/demo-users'
+import { startLocalMailSinkIfNeeded, startSchedules } from './services/notifications'
 
 const config = loadConfig()
+const mailSink = await startLocalMailSinkIfNeeded(config)
 const ds = await openDatabase(config.DATABASE_PATH)
 
 if (config.DEMO_DATA && (await isEmpty(ds))) {
@@ -22,14 +24,23 @@ if (admin?.oneTimePassword) {
 
 scheduleDailyBackups(config.BACKUP_DIR, config.BACKUP_KEEP, (msg) => console.log(msg))
 
+let stopSchedules = () => {}
 const app = createApp(config)
 const server = app.listen(config.PORT, config.HOST, () => {
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.PORT
+  // Links in e-mail must carry the real port when PORT=0 picked a free one.
+  if (!config.PUBLIC_URL) config.publicUrl = `http://localhost:${port}`
   console.log(`Binwright is running at http://localhost:${port} (database ${config.DATABASE_PATH})`)
+  console.log(mailSink
+    ? `No SMTP_HOST set: e-mail goes to a local test mail server at ${mailSink.host}:${mailSink.port} and nowhere else; admins read it at /admin/outbox.`
+    : `E-mail goes out through ${config.SMTP_HOST}:${config.SMTP_PORT}.`)
+  stopSchedules = startSchedules(config)
 })
 
 const shutdown = () => {
+  stopSchedules()
+  void mailSink?.close()
   server.close(() => void ds.destroy().then(() => process.exit(0)))
 }
 process.on('SIGINT', shutdown)

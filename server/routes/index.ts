@@ -9,6 +9,9 @@ import { suppliersRouter } from './suppliers'
 import { reorderRouter } from './reorder'
 import { attachmentsRouter } from './attachments'
 import { partsRouter, stockLevelsRouter } from './parts'
+import { ordersRouter } from './orders'
+import { alertsRouter } from './alerts'
+import { outboxRouter } from './outbox'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -28,6 +31,9 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/parts', reorderRouter)
   app.use('/api/parts', partsRouter)
   app.use('/api/stock-levels', stockLevelsRouter)
+  app.use('/api/orders', ordersRouter)
+  app.use('/api/alerts', alertsRouter)
+  app.use('/api/outbox', outboxRouter)
   void app
   void config
 }
