@@ -69,10 +69,14 @@ export function rowToPart(row: CsvRow, line: number, base: Record<string, unknow
   const kind = cell('kind').toLowerCase()
   const baseAttributes = (base.attributes ?? {}) as Record<string, unknown>
   const attributes: Record<string, unknown> = baseAttributes.kind === kind ? { ...baseAttributes } : { kind }
-  for (const c of KIND_COLUMNS[kind] ?? []) if (value(c) !== undefined) attributes[c] = value(c)
+  for (const c of KIND_COLUMNS[kind] ?? []) {
+    const v = value(c)
+    if (v !== undefined) attributes[c] = v
+  }
   const raw: Record<string, unknown> = { ...base, attributes }
   for (const c of ['code', 'name', 'unit', 'notes', 'reorderPoint', 'reorderQuantity', 'unitCost', 'pressureBearing'] as const) {
-    if (value(c) !== undefined) raw[c] = value(c)
+    const v = value(c)
+    if (v !== undefined) raw[c] = v
   }
   const tags = cell('tags')
   if (tags) raw.tags = tags.split(/[;|]/).map((t) => t.trim()).filter(Boolean)

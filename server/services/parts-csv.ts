@@ -36,10 +36,11 @@ export async function exportPartsCsv(includeArchived: boolean): Promise<string> 
 /** Parsed CSV rows with their line numbers (header = line 1), blank lines skipped. */
 export function readCsv(text: string): { rows: { row: CsvRow; line: number }[]; errors: CsvRowError[]; fields: string[] } {
   const parsed = Papa.parse<CsvRow>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: false, transformHeader: (h) => h.trim() })
-  const errors: CsvRowError[] = parsed.errors.map((e) => ({ line: (e.row ?? 0) + 2, column: 'row', message: e.message }))
-  const rows = parsed.data
-    .map((row, i) => ({ row, line: i + 2 }))
-    .filter(({ row }) => Object.values(row).some((v) => typeof v === 'string' && v.trim() !== ''))
+  const blank = (row?: CsvRow) => !row || !Object.values(row).some((v) => typeof v === 'string' && v.trim() !== '')
+  const errors: CsvRowError[] = parsed.errors
+    .filter((e) => !blank(parsed.data[e.row ?? -1]))
+    .map((e) => ({ line: (e.row ?? 0) + 2, column: 'row', message: e.message }))
+  const rows = parsed.data.map((row, i) => ({ row, line: i + 2 })).filter(({ row }) => !blank(row))
   return { rows, errors, fields: parsed.meta.fields ?? [] }
 }
 
