@@ -1,5 +1,8 @@
 import type { Express } from 'express'
 import type { Config } from '../config'
+import { labelsRouter } from './labels'
+import { scanRouter } from './scan'
+import { stockTakeRouter } from './stocktake'
 import { binsRouter, racksRouter, workshopsRouter } from './bins'
 import { stockRouter } from './stock'
 import { movementsRouter } from './movements'
@@ -34,6 +37,9 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/orders', ordersRouter)
   app.use('/api/alerts', alertsRouter)
   app.use('/api/outbox', outboxRouter)
+  app.use('/api/labels', labelsRouter(config))
+  app.use('/api/scan', scanRouter)
+  app.use('/api/stocktake', stockTakeRouter)
   void app
   void config
 }
