@@ -5,8 +5,10 @@
  */
 import { writeResults } from './harness'
 import { baselineSuite } from './suites/baseline'
+import { uploadsSuite } from './suites/uploads'
 
 const suites: { name: string; run: () => Promise<void> }[] = [baselineSuite]
+suites.push(uploadsSuite)
 
 for (const suite of suites) {
   console.log(`\n— ${suite.name}`)

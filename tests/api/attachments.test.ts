@@ -19,7 +19,7 @@ let partId: number, ownBuildId: number, othersBuildId: number
 
 async function seedOwners(ds: DataSource) {
   const part = await ds.getRepository(Part).save({
-    code: 'NUT-7BA-BR', name: 'Nut 7BA brass', kind: 'nut', attributes: {}, labelCode: 'P-TEST-1',
+    code: 'NUT-7BA-BR', name: 'Nut 7BA brass', kind: 'fastener', attributes: { type: 'nut', thread: '7BA' }, labelCode: 'P-TEST-1',
   })
   const other = await ds.getRepository(User).save({
     username: 'ellis', displayName: 'Ellis Marsh', role: 'builder', email: null, active: true,
