@@ -64,8 +64,10 @@ export function buildReorderSuggestion(input: SuggestionInput): ReorderSuggestio
   const d = used / windowDays
   const sigma = stdDev(days)
   const safetyFrom = input.safetyStock === undefined ? 'computed' : 'given'
-  const ss = input.safetyStock ?? textbookSafetyStock(DEFAULT_SERVICE_Z, sigma, leadTimeDays)
-  const rop = reorderPoint({ dailyDemand: d, leadTimeDays, safetyStock: ss })
+  // Math.max(0, …) also turns the −0 of rounding nothing up into a plain 0.
+  const ss = Math.max(0, input.safetyStock ?? textbookSafetyStock(DEFAULT_SERVICE_Z, sigma, leadTimeDays))
+  const rop = { ...reorderPoint({ dailyDemand: d, leadTimeDays, safetyStock: ss }) }
+  rop.reorderPoint = Math.max(0, rop.reorderPoint)
   const D = d * DAYS_PER_YEAR
   const eoqProblem = used <= 0 ? 'No use in the window, so there is no yearly demand to order for.'
     : !(H > 0) ? 'The holding cost is 0: set the part\'s unit cost (or a holding rate) first.'

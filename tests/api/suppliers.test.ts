@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { clientAs, createTestApp, type Client } from '../helpers/app'
-import { Part } from '../../server/entities'
+import { Movement, Part, StockLot } from '../../server/entities'
 
 let t: Awaited<ReturnType<typeof createTestApp>>
 let keeper: Client
@@ -45,5 +45,26 @@ describe('/api/suppliers', () => {
     expect(patched.body.offers[0].supplierName).toBe('Pennine Fixings (invented)')
     const viewer = await clientAs(t.app, 'viewer')
     expect((await viewer.patch(`/api/parts/${partId}/reorder`, { reorderPoint: 1 })).status).toBe(403)
+  })
+
+  it('suggests a reorder point and quantity from the part\'s own draws, and changes nothing', async () => {
+    const bin = (await t.dataSource.getRepository(StockLot).findOneByOrFail({ partId })).binId
+    for (let i = 0; i < 3; i++) {
+      expect((await keeper.post('/api/stock/take', { partId, binId: bin, quantity: 10, reason: 'steam chest' })).status).toBe(200)
+    }
+    // Spread the three draws over the last month: 2, 9 and 20 days ago.
+    const moves = await t.dataSource.getRepository(Movement).find({ where: { partId, kind: 'draw' }, order: { id: 'ASC' } })
+    for (const [i, ago] of [2, 9, 20].entries()) {
+      await t.dataSource.getRepository(Movement).update({ id: moves[i].id }, { at: new Date(Date.now() - ago * 86_400_000) })
+    }
+    const res = await keeper.get(`/api/parts/${partId}/reorder-suggestion?windowDays=30&leadTimeDays=5&safetyStock=0&orderCost=5&holdingRate=0.25`)
+    expect(res.status).toBe(200)
+    // 30 used in 30 days → d = 1/day; ROP = 1 × 5 + 0 = 5 (formula, reference §8).
+    // D = 365/yr, S = 5, H = 0.08 × 25 % = 0.02 → Q* = √(2 × 365 × 5 / 0.02) = 427.2 → 9 packs of 50 = 450.
+    expect(res.body).toMatchObject({ used: 30, drawCount: 3, dailyUse: 1, reorderPoint: 5, annualDemand: 365, packSize: 50, packs: 9, orderQuantity: 450 })
+    expect(res.body.eoq).toBeCloseTo(427.2, 1)
+    expect(res.body.steps.map((x: { label: string }) => x.label)).toContain('Economic order quantity Q*')
+    expect((await keeper.get(`/api/parts/${partId}/supply`)).body.part).toMatchObject({ reorderPoint: 60, reorderQuantity: 150 })
+    expect((await keeper.get(`/api/parts/${partId}/reorder-suggestion?windowDays=3`)).status).toBe(400)
   })
 })

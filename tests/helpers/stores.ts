@@ -6,7 +6,7 @@ import { newLabelCode } from '../../server/services/codes'
 import type { PartInput } from '../../shared/schemas/part'
 
 /** A small invented store for tests that need exact figures: bins, one supplier, parts with stock. */
-export async function smallStore(userId: number) {
+export async function smallStore(_userId?: number) {
   return inTransaction(async (tx) => {
     const workshop = await tx.save(Workshop, { name: 'Test bench workshop' })
     const rack = await tx.save(Rack, { code: 'T1', name: 'Test rack', workshopId: workshop.id })
