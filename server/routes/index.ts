@@ -15,6 +15,7 @@ import { partsRouter, stockLevelsRouter } from './parts'
 import { ordersRouter } from './orders'
 import { alertsRouter } from './alerts'
 import { outboxRouter } from './outbox'
+import { todayRouter } from './today'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -40,6 +41,7 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/labels', labelsRouter(config))
   app.use('/api/scan', scanRouter)
   app.use('/api/stocktake', stockTakeRouter)
+  app.use('/api/today', todayRouter)
   void app
   void config
 }
