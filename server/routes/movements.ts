@@ -1,6 +1,6 @@
 import { Router } from 'express'
 import { currentUser, requireRole, requireSignIn } from '../middleware/auth'
-import { exportMovementsCsv, listMovements } from '../services/movements'
+import { exportMovementsCsv, ledgerPeople, listMovements } from '../services/movements'
 import { reverseStockMovement } from '../services/stock'
 import { idParam } from '../../shared/schemas/user'
 
@@ -16,6 +16,10 @@ movementsRouter.get('/export.csv', requireSignIn, async (req, res) => {
   res.type('text/csv; charset=utf-8')
   res.attachment(`binwright-ledger-${new Date().toISOString().slice(0, 10)}.csv`)
   res.send(csv)
+})
+
+movementsRouter.get('/people', requireSignIn, async (_req, res) => {
+  res.json(await ledgerPeople())
 })
 
 movementsRouter.post('/:id/reverse', requireRole('storekeeper'), async (req, res) => {

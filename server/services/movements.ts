@@ -85,3 +85,12 @@ export async function exportMovementsCsv(raw: MovementQuery): Promise<string> {
 
 const CSV_COLUMNS = ['id', 'at', 'kind', 'part_code', 'part_name', 'quantity', 'unit', 'from_bin', 'to_bin',
   'batch', 'build', 'purchase_order', 'user', 'reason', 'reverses']
+
+/** Everyone who has written to the ledger, for the ledger's "who" filter (viewers cannot list users). */
+export async function ledgerPeople(): Promise<{ id: number; displayName: string }[]> {
+  return db().getRepository(User).createQueryBuilder('u')
+    .select(['u.id', 'u.displayName'])
+    .where('u.id IN (SELECT DISTINCT m.userId FROM movements m)')
+    .orderBy('u.displayName').getMany()
+    .then((users) => users.map((u) => ({ id: u.id, displayName: u.displayName })))
+}

@@ -24,5 +24,7 @@ export const movementsApi = {
     const rest = { ...filter, page: undefined, pageSize: undefined }
     return `/api/movements/export.csv${query(rest)}`
   },
+  /** Who has written to the ledger (for the "who" filter). */
+  people: () => request<{ id: number; displayName: string }[]>('GET', '/movements/people'),
   reverse: (id: number, reason = '') => request<StockResultDto>('POST', `/movements/${id}/reverse`, { reason }),
 }

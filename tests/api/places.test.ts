@@ -147,3 +147,13 @@ describe('GET /api/movements', () => {
     expect(res.text).toContain(`"'=HYPERLINK(""x"")"`)
   })
 })
+
+describe('GET /api/movements/people', () => {
+  it('lists who has written to the ledger, by name, for any signed-in user', async () => {
+    const res = await viewer.get('/api/movements/people')
+    expect(res.status).toBe(200)
+    const names = res.body.map((p: { displayName: string }) => p.displayName)
+    expect(names).toHaveLength(2)
+    expect(names).toEqual([...names].sort())
+  })
+})
