@@ -8,3 +8,8 @@ export function formatNumber(n: number): string {
 
 /** "24 pcs", "125 mm", "2 bottle". */
 export const formatQuantity = (n: number, unit: string) => `${formatNumber(n)} ${unit}`.trim()
+
+/** Tag colours of the build statuses (ant-design-vue preset names; the status word is always shown). */
+export const STATUS_COLOURS: Record<string, string> = {
+  planned: 'default', active: 'gold', finished: 'green', shelved: 'default',
+}
