@@ -15,8 +15,7 @@ import type { z } from 'zod'
 /** Statuses in which a build holds nothing: moving there releases its reservations. */
 const CLOSING = new Set(['finished', 'shelved'])
 
-export async function listBuilds(query: z.input<typeof buildListQuery>, actor: Actor): Promise<Page<BuildSummaryDto>> {
-  const q = buildListQuery.parse(query)
+export async function listBuilds(q: z.infer<typeof buildListQuery>, actor: Actor): Promise<Page<BuildSummaryDto>> {
   const where: FindOptionsWhere<Build> = {
     ...(q.status ? { status: q.status } : {}),
     ...(q.mine ? { ownerId: actor.id } : {}),
