@@ -20,10 +20,17 @@ const thumbWidth = z.coerce.number().pipe(z.union(THUMB_WIDTHS.map((w) => z.lite
 export function attachmentsRouter(config: Config) {
   const service = createAttachmentService(config)
   void service.resumePending().catch(() => undefined)
-  const upload = multer({
+  const { maxBytes } = service.rules()
+  const receive = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: service.rules().maxBytes, files: 1, fields: 4, parts: 5 },
+    limits: { fileSize: maxBytes, files: 1, fields: 4, parts: 5 },
   }).single('file')
+  /** multer, with the limit named in its 413 so the uploader knows what would fit. */
+  const upload: RequestHandler = (req, res, next) => receive(req, res, (err?: unknown) => {
+    if ((err as { code?: string } | undefined)?.code !== 'LIMIT_FILE_SIZE') return next(err)
+    next(new AppError(413, 'FILE_TOO_LARGE',
+      `The file is larger than the upload limit of ${config.UPLOAD_MAX_MB} MB.`, { maxBytes }))
+  })
   const router = Router()
 
   /** Sends a stored file with its judged type; images inline, PDFs as a download. */

@@ -27,9 +27,11 @@ const isAccepted = (mime: string): mime is AcceptedMime =>
 export async function judgeFileType(bytes: Buffer): Promise<AcceptedMime> {
   const found = await fileTypeFromBuffer(bytes)
   if (found && isAccepted(found.mime)) return found.mime
-  const what = found ? `a ${found.ext.toUpperCase()} file (${found.mime})` : 'not a file type we recognise'
+  const what = found
+    ? `The file's contents are ${found.ext.toUpperCase()} (${found.mime}), which is not accepted.`
+    : "The file's contents are not an image or PDF we can read (we judge by the contents, not the name)."
   throw new AppError(415, 'UNSUPPORTED_FILE_TYPE',
-    `This file is ${what}. Upload a PNG, JPEG, WebP or GIF image, or a PDF drawing.`,
+    `${what} Upload a PNG, JPEG, WebP or GIF image, or a PDF drawing.`,
     { detected: found?.mime ?? null, accepted: ACCEPTED_MIME_TYPES })
 }
 

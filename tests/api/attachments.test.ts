@@ -162,7 +162,8 @@ describe('refusals by type and size', () => {
       const big = await jpegBytes(600, 400, true, 95)
       expect(big.length).toBeGreaterThan(0.05 * 1024 * 1024)
       const res = await upload(c, `ownerType=part&ownerId=${pid}`, big, 'photo.jpg').expect(413)
-      expect(res.body.error.code).toBe('FILE_TOO_LARGE')
+      expect(res.body.error).toMatchObject({ code: 'FILE_TOO_LARGE', details: { maxBytes: 52428 } })
+      expect(res.body.error.message).toMatch(/limit of 0\.05 MB/)
       expect((await c.get('/api/attachments/rules').expect(200)).body.maxBytes).toBe(52428)
       expect(readdirSync(small.config.UPLOAD_DIR).filter((f) => f !== 'thumbs')).toEqual([])
     } finally {
