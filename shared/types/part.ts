@@ -51,15 +51,8 @@ export interface PartDetailDto extends PartSummaryDto {
 }
 
 /** Structured filters the search understood from the query (shown as chips in the client). */
-export interface PartQueryDto {
-  kind?: PartKind
-  form?: string
-  threadKey?: string
-  lengthMm?: number
-  sizeMm?: number
-  material?: string
-  text: string
-}
+export type { PartQuery as PartQueryDto } from '../domain/part-query'
+import type { PartQuery as PartQueryDto } from '../domain/part-query'
 
 /** A page of search results plus what the query was understood to mean. */
 export interface PartSearchPage {

@@ -26,7 +26,8 @@ export const setUnauthorisedHandler = (handler: () => void) => {
 
 /** The one fetch wrapper: JSON in and out, errors turned into ApiError. `path` is under /api. */
 export async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
-  const isForm = typeof FormData !== 'undefined' && body instanceof FormData
+  // FormData (uploads) and Blob (a CSV file as text/csv) go as they are; anything else as JSON.
+  const isForm = (typeof FormData !== 'undefined' && body instanceof FormData) || (typeof Blob !== 'undefined' && body instanceof Blob)
   const headers: Record<string, string> = { accept: 'application/json' }
   if (method !== 'GET') headers['x-csrf-token'] = csrfToken
   if (body !== undefined && !isForm) headers['content-type'] = 'application/json'
@@ -34,7 +35,7 @@ export async function request<T>(method: string, path: string, body?: unknown): 
     method,
     headers,
     credentials: 'same-origin',
-    body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
+    body: body === undefined ? undefined : isForm ? (body as BodyInit) : JSON.stringify(body),
   })
   if (res.status === 204) return undefined as T
   const data = await res.json().catch(() => undefined)
@@ -56,3 +57,19 @@ export function query(params: Record<string, string | number | boolean | undefin
 
 export const toApiError = (e: unknown): ApiError =>
   e instanceof ApiError ? e : new ApiError(0, 'NETWORK', e instanceof Error ? e.message : 'The server could not be reached.')
+
+/** Like request, but answers with the body as a Blob (a PDF to download); errors as ApiError. */
+export async function requestBlob(method: string, path: string, body?: unknown): Promise<Blob> {
+  const headers: Record<string, string> = { accept: 'application/pdf, application/json' }
+  if (method !== 'GET') headers['x-csrf-token'] = csrfToken
+  if (body !== undefined) headers['content-type'] = 'application/json'
+  const res = await fetch(`/api${path}`, {
+    method, headers, credentials: 'same-origin', body: body === undefined ? undefined : JSON.stringify(body),
+  })
+  if (!res.ok) {
+    if (res.status === 401 && onUnauthorised) onUnauthorised()
+    const err = ((await res.json().catch(() => undefined)) as ApiErrorBody | undefined)?.error
+    throw new ApiError(res.status, err?.code ?? 'HTTP_' + res.status, err?.message ?? res.statusText, err?.details)
+  }
+  return res.blob()
+}

@@ -25,10 +25,17 @@ export const partsApi = {
   update: (id: number, input: PartInput) => request<PartDetailDto>('PATCH', `/parts/${id}`, input),
   archive: (id: number) => request<PartDetailDto>('POST', `/parts/${id}/archive`),
   restore: (id: number) => request<PartDetailDto>('POST', `/parts/${id}/restore`),
-  suggestCode: (input: Pick<PartInput, 'name' | 'attributes'>) =>
+  suggestCode: (input: Pick<PartInput, 'name' | 'attributes'> & { exceptId?: number }) =>
     request<{ code: string }>('POST', '/parts/suggest-code', input),
-  importCsv: (csv: string, dryRun: boolean) =>
-    request<CsvImportResult>('POST', '/parts/import', { csv, dryRun }),
+  remove: (id: number) => request<void>('DELETE', `/parts/${id}`),
+  /** A CSV file goes as text/csv (a whole catalogue can pass the 1 MB JSON limit). */
+  importCsv: (file: Blob, dryRun: boolean) =>
+    request<CsvImportResult>('POST', `/parts/import${query({ dryRun })}`, new Blob([file], { type: 'text/csv' })),
+  importStockLevels: (file: Blob, dryRun: boolean) =>
+    request<CsvImportResult>('POST', `/stock-levels/import${query({ dryRun })}`, new Blob([file], { type: 'text/csv' })),
+  /** Plain links: the browser downloads the CSV with the session cookie. */
+  exportUrl: '/api/parts/export.csv',
+  stockLevelsExportUrl: '/api/stock-levels/export.csv',
 }
 
 export type PartPage = Page<PartSummaryDto>
