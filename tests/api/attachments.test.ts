@@ -5,11 +5,12 @@ import type { Express } from 'express'
 import type { DataSource } from 'typeorm'
 import { clientAs, clientFor, createTestApp, demoUser, type Client } from '../helpers/app'
 import {
-  gifBytes, hugePngHeader, inspect, jpegBytes, pdfBytes, pngBytes, withExifOrientation,
+  WEBP_1X1, gifBytes, hugePngHeader, inspect, jpegBytes, pdfBytes, pngBytes, withExifOrientation,
 } from '../helpers/images'
 import { Attachment, Build, Part, User } from '../../server/entities'
 import { hashPassword } from '../../server/services/users'
 import { useDataSource } from '../../server/db'
+import { thumbnailPool } from '../../server/services/attachments'
 import type { AttachmentDto } from '../../shared/types/attachment'
 
 let t: Awaited<ReturnType<typeof createTestApp>>
@@ -117,6 +118,41 @@ describe('POST /api/attachments with images', () => {
 
 /** One RGBA channel of a jimp colour (0 red, 1 green, 2 blue). */
 const channel = (rgba: number, i: number) => (rgba >>> (24 - 8 * i)) & 0xff
+
+describe('serving images', () => {
+  it('serves images inline with their judged type, nosniff, private caching and a sandboxing CSP', async () => {
+    const res = await upload(keeper, `ownerType=part&ownerId=${partId}`, await pngBytes(64, 48), 'gland.png')
+      .expect(201)
+    const file = await keeper.get(res.body.fileUrl).expect(200)
+    expect(file.headers).toMatchObject({
+      'content-type': 'image/png',
+      'x-content-type-options': 'nosniff',
+      'cache-control': 'private, max-age=86400',
+    })
+    expect(file.headers['content-disposition']).toMatch(/^inline; filename="gland\.png"/)
+    expect(file.headers['content-security-policy']).toMatch(/default-src 'none'.*sandbox/)
+    const done = await settled(keeper, res.body.id)
+    const thumb = await keeper.get(done.thumbUrls![160]).expect(200)
+    expect(thumb.headers['content-type']).toBe('image/png')
+    expect(thumb.headers['x-content-type-options']).toBe('nosniff')
+  })
+
+  it('keeps a WebP without thumbnails (jimp 1.6 cannot decode WebP) and serves it as it came', async () => {
+    const res = await upload(keeper, `ownerType=part&ownerId=${partId}`, WEBP_1X1, 'dot.webp').expect(201)
+    expect(res.body).toMatchObject({ mime: 'image/webp', kind: 'image', thumbStatus: 'none', thumbUrls: null })
+    const file = await keeper.get(res.body.fileUrl).expect(200)
+    expect(file.headers['content-type']).toBe('image/webp')
+  })
+
+  it('answers 404 NO_THUMBNAIL while pending and 400 for a width that is not made', async () => {
+    const res = await upload(keeper, `ownerType=part&ownerId=${partId}`, await pngBytes(1200, 900), 'big.png')
+      .expect(201)
+    const early = await keeper.get(`/api/attachments/${res.body.id}/thumb/160`)
+    if (early.status === 404) expect(early.body.error.message).toMatch(/still being made/)
+    await keeper.get(`/api/attachments/${res.body.id}/thumb/320`).expect(400)
+    await settled(keeper, res.body.id)
+  })
+})
 
 describe('POST /api/attachments with PDF drawings', () => {
   it('keeps a PDF as it came, with no thumbnail, served as a download that cannot be sniffed', async () => {
@@ -265,5 +301,29 @@ describe('DELETE /api/attachments/:id', () => {
     expect(mine()).toEqual([])
     await keeper.get(`/api/attachments/${res.body.id}`).expect(404)
     await keeper.get(res.body.fileUrl).expect(404)
+  })
+
+  it('also removes thumbnails that a worker finishes after the delete', async () => {
+    const res = await upload(keeper, `ownerType=part&ownerId=${partId}`, await pngBytes(1200, 900), 'quick.png')
+      .expect(201)
+    const row = await t.dataSource.getRepository(Attachment).findOneByOrFail({ id: res.body.id })
+    await keeper.delete(`/api/attachments/${res.body.id}`).expect(204)
+    const stem = row.storedName.replace(/\.png$/, '')
+    const leftovers = () => storedFiles().filter((f) => f.startsWith(stem))
+    // Wait for the worker, then (briefly) for its result to be recorded and the orphans removed.
+    const until = Date.now() + 20_000
+    while ((thumbnailPool.pending > 0 || leftovers().length) && Date.now() < until) {
+      await new Promise((r) => setTimeout(r, 100))
+    }
+    expect(leftovers()).toEqual([])
+  })
+
+  it("lets a builder delete their own build's drawing, but not a viewer (403)", async () => {
+    const res = await upload(builder, `ownerType=build&ownerId=${ownBuildId}`, await pngBytes(40, 30), 'x.png')
+      .expect(201)
+    await viewer.delete(`/api/attachments/${res.body.id}`).expect(403)
+    await builder.delete(`/api/attachments/${res.body.id}`).expect(204)
+    const list = await builder.get(`/api/attachments?ownerType=build&ownerId=${ownBuildId}`).expect(200)
+    expect(list.body.items.map((a: AttachmentDto) => a.id)).not.toContain(res.body.id)
   })
 })

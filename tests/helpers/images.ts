@@ -29,6 +29,9 @@ export function picture(w: number, h: number, noise = false) {
   return img
 }
 
+/** A real 1×1 lossless WebP (the widely used feature-detection image); jimp cannot make WebP. */
+export const WEBP_1X1 = Buffer.from('UklGRhoAAABXRUJQVlA4TA0AAAAvAAAAEAcQERGIiP4HAA==', 'base64')
+
 export const pngBytes = (w: number, h: number) => picture(w, h).getBuffer('image/png')
 export const gifBytes = (w: number, h: number) => picture(w, h).getBuffer('image/gif')
 export const jpegBytes = (w: number, h: number, noise = false, quality = 85) =>
