@@ -43,9 +43,10 @@ export async function drawFromLots(tx: EntityManager, input: DrawInput): Promise
   const part = await activePart(tx, input.partId)
   assertWholeItems(part, input.quantity)
   if (input.allowExpired) assertOverride('draw from an expired batch', input.role, input.reason)
-  if (!input.buildId) await guardReservations(tx, part, input)
+  // The lots are checked first: "not enough in that bin" is plainer than naming the builds.
   if (stockModeOf(part.kind) === 'length') return cutFromPiece(tx, part, input)
   const lots = await candidateLots(tx, part, input)
+  if (!input.buildId) await guardReservations(tx, part, input)
   const moves: Movement[] = []
   let left = input.quantity
   for (const lot of lots) {
@@ -131,6 +132,7 @@ async function cutFromPiece(tx: EntityManager, part: Part, input: DrawInput): Pr
       { requested: input.quantity, longest: longest?.quantity ?? 0 })
   }
   if (input.binId && piece.binId !== input.binId) throw conflict('LOT_NOT_IN_BIN', 'That piece is not in the chosen bin.')
+  if (!input.buildId) await guardReservations(tx, part, input)
   const moves = [await postMovement(tx, draw(input, input.quantity, piece.id))]
   // The kerf can only eat what is left of the piece: a cut at the very end loses less.
   const kerf = Math.min(input.kerfMm ?? 0, piece.quantity - input.quantity)
