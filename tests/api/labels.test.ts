@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import * as mupdf from 'mupdf'
-import jsQR from 'jsqr'
 import { clientAs, createTestApp, type Client } from '../helpers/app'
+import { decodeQrIn as decodeLabel, openPdf, pageText } from '../helpers/pdf-labels'
 import { binByCode } from './stock-helpers'
 import { Bin, Part } from '../../server/entities'
 import { findSheet, positionOf } from '../../shared/domain/label-sheets'
@@ -9,9 +8,6 @@ import type { LabelItemsDto } from '../../shared/types/labels'
 
 /** A public address unlike the server's own, so the test proves labels use the configured one. */
 const PUBLIC_URL = 'https://stores.hollindale.example'
-/** Render scale: 4 × 72 = 288 dpi, plenty for QR modules of half a millimetre. */
-const SCALE = 4
-
 let t: Awaited<ReturnType<typeof createTestApp>>
 let keeper: Client, builder: Client
 beforeAll(async () => {
@@ -27,27 +23,6 @@ const pdfOf = (body: object) => keeper.post('/api/labels/pdf', body).buffer(true
     res.on('data', (c: Buffer) => chunks.push(c))
     res.on('end', () => done(null, Buffer.concat(chunks)))
   })
-
-const openPdf = (bytes: Buffer) => mupdf.Document.openDocument(bytes, 'application/pdf')
-const pageText = (doc: mupdf.Document, i: number) => doc.loadPage(i).toStructuredText('preserve-whitespace').asText()
-
-/** Renders one label of a page and decodes its QR code with jsQR. */
-function decodeLabel(doc: mupdf.Document, page: number, box: { xMm: number; yMm: number; wMm: number; hMm: number }) {
-  // Opaque RGB on white (an alpha render leaves the paper transparent black); jsQR wants RGBA.
-  const pix = doc.loadPage(page).toPixmap(mupdf.Matrix.scale(SCALE, SCALE), mupdf.ColorSpace.DeviceRGB, false, true)
-  const px = (mm: number) => Math.round((mm / 25.4) * 72 * SCALE)
-  const [x0, y0, w, h] = [px(box.xMm), px(box.yMm), px(box.wMm), px(box.hMm)]
-  const all = pix.getPixels()
-  const stride = pix.getStride()
-  const crop = new Uint8ClampedArray(w * h * 4)
-  for (let y = 0; y < h; y++) {
-    for (let x = 0; x < w; x++) {
-      const from = (y0 + y) * stride + (x0 + x) * 3
-      crop.set([all[from], all[from + 1], all[from + 2], 255], (y * w + x) * 4)
-    }
-  }
-  return jsQR(crop, w, h)?.data
-}
 
 const codesOn = (text: string) => [...text.matchAll(/\b([A-C]\d-\d{2})\b/g)].map((m) => m[1])
 
