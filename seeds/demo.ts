@@ -5,6 +5,7 @@ import { hashPassword } from '../server/services/users'
 import { createPart } from '../server/services/parts'
 import { receiveInto } from '../server/services/stock'
 import { newLabelCode } from '../server/services/codes'
+import { reserveIn } from '../server/services/builds-reserve'
 import { DEMO_USERS } from './demo-users'
 import { DEMO_CATALOGUE } from './demo-catalogue'
 
@@ -92,4 +93,10 @@ async function seedBuilds(tx: Tx, users: Record<string, User>, parts: Part[]) {
     description: 'A simple first engine for the juniors to build over the winter.', targetDate: isoDaysFromNow(60),
   })
   await tx.save(BuildLine, { buildId: oscillator.id, partId: byCode('ROUND-9.525').id, quantity: 60, pieces: 2, note: 'cylinder blanks', position: 0 })
+  // The launch engine holds its gaskets, and wants more ME studs for the steam chest than the
+  // stores have: reserving what there is (through the builds service) records one shortage.
+  const meStud = parts.find((p) => p.name.startsWith('5/32-40 ME stud'))!
+  const chest = await tx.save(BuildLine, { buildId: launch.id, partId: meStud.id, quantity: 16, note: 'steam chest cover studs', position })
+  const gaskets = await tx.findOneByOrFail(BuildLine, { buildId: launch.id, partId: byCode('GSK-0.4').id })
+  for (const line of [gaskets, chest]) await reserveIn(tx, launch, { lineId: line.id, allowPartial: true }, users.builder.id)
 }

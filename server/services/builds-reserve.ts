@@ -10,7 +10,7 @@ import { BOM_EPSILON, outstandingOf, type CuttingAllowance } from '../../shared/
 import { releaseInput, reserveInput, type ReleaseInput, type ReserveInput } from '../../shared/schemas/build'
 import type { BuildDetailDto, ReserveResultDto } from '../../shared/types/build'
 
-interface Grant {
+export interface Grant {
   lineId: number
   partCode: string
   unit: string
@@ -76,24 +76,31 @@ export const reserve = (buildId: number, raw: ReserveInput, actor: Actor): Promi
   inTransaction(async (tx) => {
     const input = reserveInput.parse(raw)
     const build = await editableBuild(tx, buildId, actor)
-    assertOpen(build)
-    const lines = input.lineId
-      ? [await lineOf(tx, build, input.lineId)]
-      : await tx.find(BuildLine, { where: { buildId: build.id }, order: { position: 'ASC', id: 'ASC' } })
-    const parts = new Map((await tx.findBy(Part, { id: In(lines.map((l) => l.partId)) })).map((p) => [p.id, p]))
-    const c = await cuttingAllowance()
-    const grants: Grant[] = []
-    for (const line of lines) {
-      grants.push(await reserveLine(tx, line, parts.get(line.partId)!, c, input.quantity, input.allowPartial, actor.id))
-    }
-    const short = grants.filter((g) => g.granted + BOM_EPSILON < g.requested)
-    // Throwing rolls the transaction back: the lines already held in this request are undone too.
-    if (short.length && !input.allowPartial) throw insufficient(build, short)
+    const grants = await reserveIn(tx, build, input, actor.id)
     return {
       lines: grants.map((g) => ({ lineId: g.lineId, partCode: g.partCode, requested: g.requested, granted: g.granted, shortQuantity: g.shortQuantity })),
       build: await toDetail(tx, build, actor),
     }
   })
+
+/** The reservation itself, inside the caller's transaction (the demo seed uses it too). */
+export async function reserveIn(tx: EntityManager, build: Build, raw: ReserveInput, userId: number): Promise<Grant[]> {
+  const input = reserveInput.parse(raw)
+  assertOpen(build)
+  const lines = input.lineId
+    ? [await lineOf(tx, build, input.lineId)]
+    : await tx.find(BuildLine, { where: { buildId: build.id }, order: { position: 'ASC', id: 'ASC' } })
+  const parts = new Map((await tx.findBy(Part, { id: In(lines.map((l) => l.partId)) })).map((p) => [p.id, p]))
+  const c = await cuttingAllowance()
+  const grants: Grant[] = []
+  for (const line of lines) {
+    grants.push(await reserveLine(tx, line, parts.get(line.partId)!, c, input.quantity, input.allowPartial, userId))
+  }
+  const short = grants.filter((g) => g.granted + BOM_EPSILON < g.requested)
+  // Throwing rolls the transaction back: the lines already held in this request are undone too.
+  if (short.length && !input.allowPartial) throw insufficient(build, short)
+  return grants
+}
 
 /** Lets go of one line's reservation or all of the build's; their recorded shortages go too. */
 export const release = (buildId: number, raw: ReleaseInput, actor: Actor): Promise<BuildDetailDto> =>

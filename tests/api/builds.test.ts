@@ -8,6 +8,8 @@ import type { BuildDetailDto, BuildLineDto } from '../../shared/types/build'
 
 let t: Awaited<ReturnType<typeof createTestApp>>
 let builder: Client, keeper: Client, viewer: Client
+/** Free valve gaskets before the partial reservation, to see the release give them back. */
+let gasketFree = 0
 const part = async (prefix: string) => {
   const all = await t.dataSource.getRepository(Part).find()
   return all.find((p) => p.code.startsWith(prefix))!
@@ -96,7 +98,7 @@ describe('POST /api/builds/:id/reserve', () => {
   })
 
   it('refuses more than is free with 409 naming the shortfall, and changes nothing', async () => {
-    const gsk = await part('GSK-0.4') // 6 on hand; the demo launch engine has not reserved any
+    const gsk = await part('GSK-0.4') // 6 on hand, 4 held by the demo launch engine
     const stud = await part('7BA-STUD-16') // 18 on hand
     const b = await newBuild(builder, 'Over-reserve', [{ prefix: '7BA-STUD-16', quantity: 4 }, { prefix: 'GSK-0.4', quantity: 9 }])
     const before = await stockTotalsOf(gsk.id)
@@ -116,6 +118,7 @@ describe('POST /api/builds/:id/reserve', () => {
   it('with allowPartial reserves what there is and records the rest as a shortage', async () => {
     const gsk = await part('GSK-0.4')
     const free = (await stockTotalsOf(gsk.id)).available
+    gasketFree = free
     const b = await newBuild(builder, 'Partial', [{ prefix: 'GSK-0.4', quantity: free + 3 }])
     await builder.post(`/api/builds/${b.id}/status`, { status: 'active' })
     const res = await builder.post(`/api/builds/${b.id}/reserve`, { allowPartial: true })
@@ -137,7 +140,7 @@ describe('POST /api/builds/:id/reserve', () => {
     expect(res.status).toBe(200)
     expect(lineFor(res.body, gsk.id)).toMatchObject({ reserved: 0, shortQuantity: 0 })
     expect(await reservationsOf(partial.id)).toEqual([])
-    expect((await stockTotalsOf(gsk.id)).available).toBe(6)
+    expect((await stockTotalsOf(gsk.id)).available).toBe(gasketFree)
     expect((await openShortages()).some((s) => s.buildId === partial.id)).toBe(false)
   })
 })
@@ -206,6 +209,18 @@ describe('POST /api/builds/:id/status', () => {
     expect(await reservationsOf(b.id)).toEqual([])
     const closed = await builder.post(`/api/builds/${b.id}/reserve`, {})
     expect(closed.body.error.code).toBe('BUILD_CLOSED')
+  })
+})
+
+describe('the demo workshop', () => {
+  it('has the launch engine holding its gaskets through the builds service, and one line short', async () => {
+    const launch = await t.dataSource.getRepository(Build).findOneByOrFail({ status: 'active' })
+    const detail: BuildDetailDto = (await viewer.get(`/api/builds/${launch.id}`)).body
+    expect(detail.lines.map((l) => [l.note, l.reserved, l.shortQuantity])).toEqual([
+      ['cylinder cover studs', 0, 0], ['cylinder cover nuts', 0, 0], ['valve chest studs', 0, 0],
+      ['cylinder cover gaskets', 4, 0], ['steam chest cover studs', 10, 6],
+    ])
+    expect(detail.progress).toMatchObject({ lines: 5, reservedLines: 1, shortLines: 1 })
   })
 })
 
