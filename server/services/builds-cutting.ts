@@ -5,16 +5,10 @@ import { badRequest, conflict } from '../errors'
 import { lotOf, show } from './stock-guards'
 import { buildOr404, cuttingAllowance, isBar, lineOf, shapeOf } from './builds-access'
 import { planCuts, type CuttingResult } from '../../shared/domain/cutting'
-import { BOM_EPSILON, blankLength, piecesDrawn, type CuttingAllowance } from '../../shared/domain/bom'
+import {
+  BOM_EPSILON, blankLength, cutsAlongPiece, piecesDrawn, type CuttingAllowance, type PlannedDraw,
+} from '../../shared/domain/bom'
 import type { CuttingPlanDto } from '../../shared/types/build'
-
-/** One planned cut: which stock piece, where along it, and how much stock it takes (blank + kerf). */
-export interface PlannedDraw {
-  lotId: number
-  startMm: number
-  endMm: number
-  takeMm: number
-}
 
 const labelOf = (line: BuildLine) => line.note || `${show(line.quantity)} mm piece`
 
@@ -35,20 +29,6 @@ function plan(lots: StockLot[], line: BuildLine, pieces: number, c: CuttingAllow
   })
 }
 
-/** Cuts one after another from one piece, as the saw takes them: blank, then up to one kerf. */
-function cutsAlong(lotId: number, lengthMm: number, blank: number, kerf: number, n: number): PlannedDraw[] | null {
-  const cuts: PlannedDraw[] = []
-  let at = 0
-  for (let i = 0; i < n; i++) {
-    const rest = lengthMm - at
-    if (rest + BOM_EPSILON < blank) return null
-    const takeMm = blank + Math.min(kerf, Math.max(0, rest - blank))
-    cuts.push({ lotId, startMm: Number(at.toFixed(1)), endMm: Number((at + blank).toFixed(1)), takeMm })
-    at += takeMm
-  }
-  return cuts
-}
-
 /**
  * The cuts a bar draw makes: `pieces` from the chosen stock piece, or where the cutting plan puts
  * them (offcuts before whole bars, least waste). Refuses with 409 when they do not all fit.
@@ -60,7 +40,7 @@ export async function planBarDraw(
   if (lotId) {
     const lot = await lotOf(tx, lotId, part.id)
     if (binId && lot.binId !== binId) throw conflict('LOT_NOT_IN_BIN', 'That piece is not in the chosen bin.')
-    const cuts = cutsAlong(lot.id, lot.quantity, blank, c.kerfMm, pieces)
+    const cuts = cutsAlongPiece(lot.id, lot.quantity, blank, c.kerfMm, pieces)
     if (!cuts) {
       throw conflict('NO_PIECE_LONG_ENOUGH',
         `That piece of ${part.code} is ${show(lot.quantity)} mm: too short for ${pieces} × ${show(line.quantity)} mm with kerf and facing. Nothing was changed.`,
@@ -75,7 +55,7 @@ export async function planBarDraw(
       `The pieces of ${part.code} in stock cannot give ${missing} of the ${pieces} × ${show(line.quantity)} mm pieces. Nothing was changed.`,
       { unplaced: missing, pieces })
   }
-  return result.plans.flatMap((p) => cutsAlong(Number(p.stockId), p.stockLengthMm, blank, c.kerfMm, p.cuts.length)!)
+  return result.plans.flatMap((p) => cutsAlongPiece(Number(p.stockId), p.stockLengthMm, blank, c.kerfMm, p.cuts.length)!)
 }
 
 /** GET the cutting plan of a bar line for the pieces not cut yet, over the pieces and offcuts in stock. */

@@ -71,12 +71,14 @@ function toRow(cells: string[], cols: Columns, line: number): BomRow | BomRowErr
 }
 
 /** Parses the whole text; blank lines and lines starting with # are skipped. */
-export function parseBomText(text: string): BomParseResult {
-  const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] })
+export function parseBomText(raw: string): BomParseResult {
+  // One kind of line break: papaparse takes the first it meets for the whole text.
+  const text = raw.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n')
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] })
   const rows: BomRow[] = []
   const errors: BomRowError[] = []
   // papaparse drops blank lines, so recover each row's line number from the text itself.
-  const lineNumbers = text.split(/\r?\n/).map((l, i) => ({ l: l.trim(), n: i + 1 })).filter((x) => x.l)
+  const lineNumbers = text.split('\n').map((l, i) => ({ l: l.trim(), n: i + 1 })).filter((x) => x.l)
   let cols: Columns = { code: 0, quantity: 1, pieces: -1, note: 2 }
   parsed.data.forEach((raw, i) => {
     const line = lineNumbers[i]?.n ?? i + 1

@@ -93,3 +93,31 @@ export function progressOf(lines: ProgressLine[]) {
     drawnPct: mean((l) => frac(l.drawn, l.need)),
   }
 }
+
+/** One cut a draw makes: which stock piece, where along it, and the stock it takes (blank + kerf). */
+export interface PlannedDraw {
+  lotId: number
+  startMm: number
+  endMm: number
+  takeMm: number
+}
+
+/**
+ * Cuts one after another from one piece, as the saw takes them: each the blank, then up to one
+ * kerf (a cut at the very end of the bar loses only what is left). Null when they do not fit.
+ * Positions agree with the cutting-list planner's layout of the same pieces on the same bar.
+ */
+export function cutsAlongPiece(lotId: number, lengthMm: number, blankMm: number, kerfMm: number, n: number): PlannedDraw[] | null {
+  const cuts: PlannedDraw[] = []
+  let at = 0
+  for (let i = 0; i < n; i++) {
+    const rest = lengthMm - at
+    if (rest + BOM_EPSILON < blankMm) return null
+    const takeMm = blankMm + Math.min(kerfMm, Math.max(0, rest - blankMm))
+    cuts.push({ lotId, startMm: round3(at), endMm: round3(at + blankMm), takeMm })
+    at += takeMm
+  }
+  return cuts
+}
+
+const round3 = (x: number) => Number(x.toFixed(3))
