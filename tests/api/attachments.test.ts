@@ -265,6 +265,13 @@ describe('who may upload, read and delete', () => {
     expect(res.body.error.code).toBe('FORBIDDEN')
   })
 
+  it('answers a large upload refused before its body is read with the status, not a dropped connection', async () => {
+    const big = Buffer.concat([await pngBytes(20, 20), Buffer.alloc(4 * 1024 * 1024)])
+    const res = await upload(viewer, `ownerType=part&ownerId=${partId}`, big, 'big.png').expect(403)
+    expect(res.body.error.code).toBe('FORBIDDEN')
+    await upload(keeper, 'ownerType=part&ownerId=99999', big, 'big.png').expect(404)
+  })
+
   it("keeps a builder off a part's drawings and off another builder's build (403)", async () => {
     await upload(builder, `ownerType=part&ownerId=${partId}`, await pngBytes(20, 20), 'b.png').expect(403)
     const res = await upload(builder, `ownerType=build&ownerId=${othersBuildId}`, await pngBytes(20, 20), 'b.png')
