@@ -6,9 +6,11 @@
 import { writeResults } from './harness'
 import { baselineSuite } from './suites/baseline'
 import { uploadsSuite } from './suites/uploads'
+import { reservationsSuite } from './suites/reservations'
 
 const suites: { name: string; run: () => Promise<void> }[] = [baselineSuite]
 suites.push(uploadsSuite)
+suites.push(reservationsSuite)
 
 for (const suite of suites) {
   console.log(`\n— ${suite.name}`)

@@ -8,7 +8,7 @@ import { createPart } from '../../server/services/parts'
 import { receiveInto } from '../../server/services/stock'
 import { stockTotalsOf } from '../../server/services/stock-totals'
 import { checkLedger } from '../../server/services/ledger-check'
-import { DEMO_USERS } from '../../seeds/demo-users'
+import { signInRaw } from '../helpers/raw-session'
 
 /** The goal in the issue: 200 parallel reservation requests against 50 free. */
 const CONTENDERS = 200
@@ -20,27 +20,6 @@ const LINES_PER_BUILD = 50
 let t: Awaited<ReturnType<typeof createTestApp>>
 let server: Server
 let base: string
-
-/** Signs in over plain HTTP: the session cookie and the CSRF token every change must carry. */
-async function signInRaw(username: string) {
-  const password = DEMO_USERS.find((u) => u.username === username)!.password
-  const first = await fetch(`${base}/api/auth/session`)
-  let cookie = first.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ')
-  const { csrfToken } = await first.json() as { csrfToken: string }
-  const login = await fetch(`${base}/api/auth/login`, {
-    method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie },
-    body: JSON.stringify({ username, password }),
-  })
-  expect(login.status).toBe(200)
-  cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ') || cookie
-  const token = ((await login.json()) as { csrfToken: string }).csrfToken
-  return async (path: string, body: object) => {
-    const res = await fetch(base + path, {
-      method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token, cookie }, body: JSON.stringify(body),
-    })
-    return { status: res.status, body: await res.json() }
-  }
-}
 
 beforeAll(async () => {
   t = await createTestApp({ demo: true })
@@ -55,7 +34,7 @@ afterAll(async () => {
 
 describe('200 parallel reservation requests against 50 free, over a listening server', () => {
   it('grants exactly 50, never holds more than is on hand, and the ledger still reconciles', async () => {
-    const post = await signInRaw('builder')
+    const post = await signInRaw(base, 'builder')
     const bin = await t.dataSource.getRepository(Bin).findOneByOrFail({ code: 'A2-08' })
     const bin2 = await t.dataSource.getRepository(Bin).findOneByOrFail({ code: 'A2-09' })
     // 60 on hand, of which a prior build holds 10: 50 free when the storm starts.
@@ -66,14 +45,14 @@ describe('200 parallel reservation requests against 50 free, over a listening se
       await receiveInto(tx, { partId: py.id, binId: bin2.id, quantity: 20, reason: 'race test' }, 1)
       return [px, py]
     })
-    const holder = (await post('/api/builds', { name: 'Earlier build' })).body
+    const holder = (await post('/api/builds', { name: 'Earlier build' })).body as { id: number }
     await post(`/api/builds/${holder.id}/lines/import`, { text: `RACE-NUT,${DRAWS}\nRACE-WASHER,5`, dryRun: false })
     expect((await post(`/api/builds/${holder.id}/reserve`, {})).status).toBe(200)
     const holderLines = await t.dataSource.getRepository(BuildLine).find({ where: { buildId: holder.id }, order: { id: 'ASC' } })
 
     const contenderBuilds: { id: number; lineIds: number[] }[] = []
     for (let b = 0; b < CONTENDERS / LINES_PER_BUILD; b++) {
-      const build = (await post('/api/builds', { name: `Contender ${b + 1}` })).body
+      const build = (await post('/api/builds', { name: `Contender ${b + 1}` })).body as { id: number }
       const text = Array.from({ length: LINES_PER_BUILD }, (_, i) => `RACE-NUT,1,line ${i + 1}`).join('\n')
       expect((await post(`/api/builds/${build.id}/lines/import`, { text, dryRun: false })).status).toBe(200)
       const lines = await t.dataSource.getRepository(BuildLine).find({ where: { buildId: build.id }, order: { id: 'ASC' } })
