@@ -7,10 +7,12 @@ import { writeResults } from './harness'
 import { baselineSuite } from './suites/baseline'
 import { uploadsSuite } from './suites/uploads'
 import { reservationsSuite } from './suites/reservations'
+import { labelsSuite } from './suites/labels'
 
 const suites: { name: string; run: () => Promise<void> }[] = [baselineSuite]
 suites.push(uploadsSuite)
 suites.push(reservationsSuite)
+suites.push(labelsSuite)
 
 for (const suite of suites) {
   console.log(`\n— ${suite.name}`)

@@ -9,7 +9,7 @@ import { SHEET_PRESETS } from '../../../shared/domain/label-sheets'
 
 /** Version the qrcode package picks for `text` forced into byte mode (an independent encoder). */
 const encoderVersion = (text: string, level: string) =>
-  QRCode.create([{ data: text, mode: 'byte' }], { errorCorrectionLevel: level as QRCode.QRCodeErrorCorrectionLevel }).version
+  QRCode.create([{ data: Buffer.from(text), mode: 'byte' }], { errorCorrectionLevel: level as QRCode.QRCodeErrorCorrectionLevel }).version
 
 /** A long public address for a part label: 62 bytes, the most a version 4 symbol holds at M. */
 const LONG_URL = 'https://stores.hollindale-sme.example/parts/by-label/P01234567'
