@@ -1,6 +1,6 @@
 import { In, Like, type EntityManager, type FindOptionsWhere } from 'typeorm'
 import { db, inTransaction } from '../db'
-import { OutboxMessage, Part, PurchaseLine, PurchaseOrder, Supplier, SupplierPart, User, Workshop } from '../entities'
+import { Bin, OutboxMessage, Part, PurchaseLine, PurchaseOrder, StockLot, Supplier, SupplierPart, User, Workshop } from '../entities'
 import { conflict, notFound } from '../errors'
 import { getSetting } from './settings'
 import { todayIso } from './stock-guards'
@@ -70,6 +70,7 @@ export async function orderDetail(id: number, m: Manager = db().manager): Promis
   const parts = new Map((await m.findBy(Part, { id: In(lines.map((l) => l.partId)) })).map((p) => [p.id, p]))
   const offers = new Map((await m.findBy(SupplierPart, { supplierId: order.supplierId, partId: In(lines.map((l) => l.partId)) })).map((o) => [o.partId, o]))
   const supplier = await m.findOneBy(Supplier, { id: order.supplierId })
+  const homes = await homeBins(m, lines.map((l) => l.partId))
   const emails = await m.find(OutboxMessage, { where: { subject: Like(`%${order.number}%`) }, order: { id: 'ASC' } })
   return {
     ...summary, notes: order.notes, supplierEmail: supplier?.email ?? '',
@@ -80,10 +81,23 @@ export async function orderDetail(id: number, m: Manager = db().manager): Promis
         supplierCode: offers.get(l.partId)?.supplierCode ?? '', quantity: l.quantity, packSize: l.packSize,
         packs: Math.round(l.quantity / l.packSize), packPrice: l.packPrice, lineCost: cents((l.quantity / l.packSize) * l.packPrice),
         receivedQuantity: l.receivedQuantity, remaining: Math.max(0, l.quantity - l.receivedQuantity),
+        suggestedBinId: homes.get(l.partId) ?? null,
       }
     }),
     emails: emails.map((e) => ({ id: e.id, to: e.to, status: e.status, tries: e.tries, lastError: e.lastError, sentAt: e.sentAt })),
   }
+}
+
+/** Each part's home bin: the open bin of its biggest lot, else an open bin whose default part it is. */
+async function homeBins(m: Manager, partIds: number[]): Promise<Map<number, number>> {
+  const homes = new Map<number, number>()
+  if (!partIds.length) return homes
+  const lots = await m.find(StockLot, { where: { partId: In(partIds) }, order: { quantity: 'DESC' } })
+  const bins = await m.findBy(Bin, { retired: false })
+  const open = new Set(bins.map((b) => b.id))
+  for (const l of lots) if (open.has(l.binId) && !homes.has(l.partId)) homes.set(l.partId, l.binId)
+  for (const b of bins) if (b.defaultPartId && partIds.includes(b.defaultPartId) && !homes.has(b.defaultPartId)) homes.set(b.defaultPartId, b.id)
+  return homes
 }
 
 /** Next number in the PO-0001 series (orders are never deleted, only cancelled). */

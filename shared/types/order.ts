@@ -50,6 +50,8 @@ export interface OrderLineDto {
   lineCost: number
   receivedQuantity: number
   remaining: number
+  /** Where this part already lives (its biggest lot, else a bin meant for it): the receipt's default bin. */
+  suggestedBinId: number | null
 }
 
 export interface OrderSummaryDto {

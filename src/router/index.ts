@@ -30,6 +30,7 @@ const routes: RouteRecordRaw[] = [
   { path: '/suppliers', component: () => import('../views/SuppliersView.vue'), meta: { title: 'Suppliers', minRole: 'storekeeper' } },
   { path: '/workbench', component: () => import('../views/WorkbenchView.vue'), meta: { title: 'Workbench' } },
   { path: '/ledger', component: () => import('../views/LedgerView.vue'), meta: { title: 'Ledger' } },
+  { path: '/admin/outbox', component: () => import('../views/OutboxView.vue'), meta: { title: 'Outbox', minRole: 'admin' } },
   { path: '/admin', component: () => import('../views/AdminView.vue'), meta: { title: 'Admin', minRole: 'admin' } },
   { path: '/account', component: () => import('../views/AccountView.vue'), meta: { title: 'My account' } },
   { path: '/:pathMatch(.*)*', component: () => import('../views/NotFoundView.vue'), meta: { title: 'Not found', public: true } },
