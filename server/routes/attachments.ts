@@ -27,7 +27,11 @@ export function attachmentsRouter(config: Config) {
   }).single('file')
   /** multer, with the limit named in its 413 so the uploader knows what would fit. */
   const upload: RequestHandler = (req, res, next) => receive(req, res, (err?: unknown) => {
-    if ((err as { code?: string } | undefined)?.code !== 'LIMIT_FILE_SIZE') return next(err)
+    const code = (err as { code?: string } | undefined)?.code
+    if (!err || err instanceof AppError) return next(err)
+    // busboy's own parse errors ("Malformed part header", "Unexpected end of form") carry no code.
+    if (!code) return next(new AppError(400, 'MALFORMED_UPLOAD', 'The upload is not a well-formed multipart form.'))
+    if (code !== 'LIMIT_FILE_SIZE') return next(err)
     next(new AppError(413, 'FILE_TOO_LARGE',
       `The file is larger than the upload limit of ${config.UPLOAD_MAX_MB} MB.`, { maxBytes }))
   })
