@@ -17,6 +17,7 @@ import { adminRouter } from './routes/admin'
 import { calcRouter } from './routes/calc'
 import { mountFeatureRouters } from './routes'
 import { AppError } from './errors'
+import { refuseHiddenText } from './middleware/text-guard'
 
 /** Session cookie lifetime: 12 hours, a long workshop day. */
 const SESSION_MAX_AGE_MS = 12 * 60 * 60 * 1000
@@ -42,6 +43,7 @@ export function createApp(config: Config) {
   app.use(compression())
   app.use(pinoHttp({ level: config.LOG_LEVEL, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
   app.use(express.json({ limit: '1mb' }))
+  app.use('/api', refuseHiddenText)
 
   app.use(session({
     name: 'binwright.sid',
