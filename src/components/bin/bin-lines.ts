@@ -10,7 +10,7 @@ export const lineCautions = (line: BinLineDto) => cautionsOf(line)
 /** "120 pcs", "310 mm", "2 bottles" with float noise removed (bar lengths to 0.1 mm). */
 export function amount(quantity: number, unit: string): string {
   const n = Math.round(quantity * 10) / 10
-  if (unit === 'pcs') return `${n} pcs`
+  if (unit === 'pcs') return n === 1 ? '1 pc' : `${n} pcs`
   return `${n} ${unit}${n !== 1 && !['mm', 'm', 'ml', 'l', 'g', 'kg'].includes(unit) && !unit.endsWith('s') ? 's' : ''}`
 }
 
