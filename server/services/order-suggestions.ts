@@ -1,4 +1,4 @@
-import { In, IsNull, type EntityManager } from 'typeorm'
+import { In, IsNull, MoreThan, type EntityManager } from 'typeorm'
 import { db } from '../db'
 import { Alert, Part, Supplier, SupplierPart } from '../entities'
 import { stockTotals } from './stock-totals'
@@ -18,13 +18,24 @@ function offerFor(part: Part, offers: SupplierPart[]): SupplierPart | undefined 
     ?? mine.sort((a, b) => a.packPrice / a.packSize - b.packPrice / b.packSize)[0]
 }
 
-/** One line per part that open low-stock alerts or build shortages say should be ordered. */
+/**
+ * Parts at or below their reorder point, worked out afresh (the same test that opens a low-stock
+ * alert, so the suggestions never wait for an alert refresh), plus open low-stock alerts.
+ */
+async function lowPartIds(m: EntityManager): Promise<number[]> {
+  const withRop = await m.find(Part, { where: { archived: false, reorderPoint: MoreThan(0) }, select: { id: true, reorderPoint: true } })
+  const totals = await stockTotals(withRop.map((p) => p.id), m)
+  const alerted = await m.find(Alert, { where: { kind: 'low-stock', resolvedAt: IsNull() }, select: { partId: true } })
+  return [
+    ...withRop.filter((p) => (totals.get(p.id)?.available ?? 0) <= p.reorderPoint).map((p) => p.id),
+    ...alerted.map((a) => a.partId!),
+  ]
+}
+
+/** One line per low part or part builds are short of that needs ordering (net of open orders). */
 export async function suggestionLines(partIds?: number[], m: EntityManager = db().manager) {
   const shortages = await openShortages()
-  const ids = partIds ?? [...new Set([
-    ...(await m.find(Alert, { where: { kind: 'low-stock', resolvedAt: IsNull() }, select: { partId: true } })).map((a) => a.partId!),
-    ...shortages.map((s) => s.partId),
-  ])]
+  const ids = partIds ?? [...new Set([...await lowPartIds(m), ...shortages.map((s) => s.partId)])]
   if (!ids.length) return []
   const parts = await m.findBy(Part, { id: In(ids), archived: false })
   const totals = await stockTotals(ids, m)
