@@ -6,11 +6,13 @@
 import { writeResults } from './harness'
 import { baselineSuite } from './suites/baseline'
 import { uploadsSuite } from './suites/uploads'
+import { partsSearchSuite } from './suites/parts-search'
 import { reservationsSuite } from './suites/reservations'
 import { labelsSuite } from './suites/labels'
 
 const suites: { name: string; run: () => Promise<void> }[] = [baselineSuite]
 suites.push(uploadsSuite)
+suites.push(partsSearchSuite)
 suites.push(reservationsSuite)
 suites.push(labelsSuite)
 

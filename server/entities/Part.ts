@@ -9,6 +9,11 @@ import type { PartKind } from '../../shared/types/domain'
  */
 @Entity('parts')
 @Index(['kind', 'threadKey'])
+// Search indexes (migration PartSearchIndexes): filter, count and order by code from the index alone.
+@Index('IDX_parts_search_thread', ['threadKey', 'form', 'lengthMm', 'material', 'archived', 'code'])
+@Index('IDX_parts_search_form', ['form', 'material', 'sizeMm', 'lengthMm', 'archived', 'code'])
+@Index('IDX_parts_search_kind', ['kind', 'sizeMm', 'material', 'archived', 'code'])
+@Index('IDX_parts_search_material', ['material', 'sizeMm', 'archived', 'code'])
 export class Part {
   @PrimaryGeneratedColumn()
   id!: number

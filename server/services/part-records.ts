@@ -41,8 +41,7 @@ export const setArchived = (id: number, archived: boolean) =>
   inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     part.archived = archived
-    await tx.save(Part, part)
-    partsChanged()
+    await tx.save(Part, part) // the word index holds archived parts too: search filters them in SQL
     return toPartDetail(part, tx)
   })
 
@@ -63,7 +62,7 @@ export const deletePart = (id: number) =>
       throw conflict('PART_IN_USE', `${part.code} has ${used.join(', ')}: archive it instead, so its history stays.`, { used })
     }
     await tx.delete(Part, { id })
-    partsChanged()
+    partsChanged([id])
   })
 
 export const suggestCodeInput = z.object({ name: z.string().trim().max(200).default(''), attributes: partAttributes, exceptId: z.number().int().positive().optional() })

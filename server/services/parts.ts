@@ -67,7 +67,7 @@ export async function createPart(tx: EntityManager, raw: PartInput): Promise<Par
     ...derivePartColumns(attributes),
     labelCode: newLabelCode('P'),
   }))
-  partsChanged()
+  partsChanged([part.id])
   return part
 }
 
@@ -89,7 +89,7 @@ export async function updatePart(tx: EntityManager, part: Part, raw: PartInput, 
     ...derivePartColumns(attributes),
   })
   const saved = await tx.save(Part, part)
-  partsChanged()
+  partsChanged([saved.id])
   return saved
 }
 

@@ -95,6 +95,15 @@ describe('PATCH /api/parts/:id', () => {
     expect(await codesFor('brass hex 5')).toEqual([made.body.code])
   })
 
+  it('finds a part by the words of its new name at once, and no longer by the old ones', async () => {
+    const made = await keeper.post('/api/parts', { name: 'Snifting valve body', attributes: { kind: 'other', properties: {} } }).expect(201)
+    expect(await codesFor('snifting')).toEqual([made.body.code])
+    expect(await codesFor('valve')).toContain(made.body.code)
+    await keeper.patch(`/api/parts/${made.body.id}`, { name: 'Blowdown cock body', attributes: { kind: 'other', properties: {} } }).expect(200)
+    expect(await codesFor('blowdown')).toEqual([made.body.code])
+    expect(await codesFor('valve')).not.toContain(made.body.code) // (its code, kept, still reads SNIFTINGVALV)
+  })
+
   it('refuses to change the kind of a part that has stock (409 KIND_LOCKED)', async () => {
     const part = await t.dataSource.getRepository(Part).findOneByOrFail({ code: '7BA-NUT-BR' })
     const res = await keeper.patch(`/api/parts/${part.id}`, { name: 'x', attributes: { kind: 'other', properties: {} } }).expect(409)
