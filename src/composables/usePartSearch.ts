@@ -20,10 +20,17 @@ export function usePartSearch() {
   const kind = ref<PartKind | undefined>(PART_KINDS.find((k) => k === route.query.kind))
   const page = ref(Number(route.query.page) || 1)
   const pageSize = ref(Number(route.query.pageSize) || DEFAULT_PAGE_SIZE)
-  const result = useAsync(() => partsApi.list({ q: q.value, kind: kind.value, page: page.value, pageSize: pageSize.value }))
+  /** Archived parts leave the list; a storekeeper shows them to restore one. */
+  const includeArchived = ref(route.query.archived === '1')
+  const result = useAsync(() => partsApi.list({
+    q: q.value, kind: kind.value, page: page.value, pageSize: pageSize.value, includeArchived: includeArchived.value || undefined,
+  }))
 
   function search() {
-    void router.replace({ query: { q: q.value || undefined, kind: kind.value, page: page.value > 1 ? page.value : undefined, pageSize: pageSize.value !== DEFAULT_PAGE_SIZE ? pageSize.value : undefined } })
+    void router.replace({ query: {
+      q: q.value || undefined, kind: kind.value, page: page.value > 1 ? page.value : undefined,
+      pageSize: pageSize.value !== DEFAULT_PAGE_SIZE ? pageSize.value : undefined, archived: includeArchived.value ? '1' : undefined,
+    } })
     return result.run()
   }
 
@@ -33,7 +40,7 @@ export function usePartSearch() {
     page.value = 1
     timer = setTimeout(search, SEARCH_DEBOUNCE_MS)
   })
-  watch(kind, () => {
+  watch([kind, includeArchived], () => {
     page.value = 1
     void search()
   })
@@ -45,5 +52,5 @@ export function usePartSearch() {
     return search()
   }
 
-  return { q, kind, page, pageSize, result, search, goTo }
+  return { q, kind, page, pageSize, includeArchived, result, search, goTo }
 }
