@@ -24,12 +24,14 @@ const ORDER: AlertKind[] = ['low-stock', 'shortage', 'expired', 'expiring']
 const n = (x: number) => String(Math.round(x * 1000) / 1000)
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!)
 
+/** The line after the part's code and name (alert messages name the part themselves; not twice). */
 function detail(l: DigestLine): string {
   if (l.alert.kind === 'low-stock' && l.stock) {
     const s = l.stock
     return `${n(s.available)} ${l.unit} available (on hand ${n(s.onHand)}, reserved ${n(s.reserved)}), reorder point ${n(s.reorderPoint)}`
   }
-  return l.alert.message
+  const part = `${l.partCode} ${l.partName}`
+  return l.alert.message.replace(`${part}, `, '').replace(` of ${part}`, '')
 }
 
 function order(l: DigestLine): string {

@@ -38,10 +38,12 @@ export async function sendDigest(now = new Date()): Promise<DigestResultDto> {
     const parts = new Map((await tx.findBy(Part, { id: In(partIds) })).map((p) => [p.id, p]))
     const totals = await stockTotals(partIds, tx)
     const suggestions = new Map((await suggestionLines(partIds, tx)).map((s) => [s.partId, s]))
+    // A part both low and short for a build carries its suggested order once, on the low-stock line.
+    const lowIds = new Set(alerts.filter((a) => a.kind === 'low-stock').map((a) => a.partId))
     const lines: DigestLine[] = alerts.map((alert) => {
       const p = parts.get(alert.partId ?? 0)
       const t = totals.get(alert.partId ?? 0)
-      const stockLike = alert.kind === 'low-stock' || alert.kind === 'shortage'
+      const stockLike = alert.kind === 'low-stock' || (alert.kind === 'shortage' && !lowIds.has(alert.partId))
       return {
         alert, partCode: p?.code ?? '', partName: p?.name ?? '', unit: p?.unit ?? '',
         stock: t && p ? { ...t, reorderPoint: p.reorderPoint } : undefined,
