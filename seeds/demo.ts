@@ -8,6 +8,7 @@ import { newLabelCode } from '../server/services/codes'
 import { reserveIn } from '../server/services/builds-reserve'
 import { DEMO_USERS } from './demo-users'
 import { DEMO_CATALOGUE } from './demo-catalogue'
+import { seedDemoOrders } from './demo-orders'
 
 const RACKS = [
   { code: 'A1', name: 'Drawer cabinet A1 — BA fasteners', bins: 12 },
@@ -67,6 +68,7 @@ export async function seedDemo(ds: DataSource) {
     await tx.save(Bin, Object.values(bins))
     await seedBuilds(tx, users, parts)
   })
+  await seedDemoOrders()
 }
 
 type Tx = Parameters<Parameters<typeof inTransaction>[0]>[0]

@@ -11,7 +11,7 @@ beforeAll(async () => {
 afterAll(() => t.close())
 
 describe('GET /api/today on the demo workshop', () => {
-  it('lists the low parts, the expired and expiring batches and no orders, for any signed-in role', async () => {
+  it('lists the low parts, the expired and expiring batches and the late order, for any signed-in role', async () => {
     const res = await viewer.get('/api/today')
     expect(res.status).toBe(200)
     const gasket = res.body.lowStock.items.find((l: { partName: string }) => l.partName.startsWith('Valve chest gasket'))
@@ -24,7 +24,9 @@ describe('GET /api/today on the demo workshop', () => {
     expect(batches['RC-2402']).toMatchObject({ expired: false, binCode: 'C1-02' })
     expect(batches['TL-2307']).toBeUndefined()
     expect(res.body.expiry).toMatchObject({ expired: 1, expiring: 1 })
-    expect(res.body.orders).toMatchObject({ open: 0, late: 0, items: [] })
+    // Demo: PO-0001 to the metal stockholder, sent 12 days ago with a 10-day lead time: 2 days late.
+    expect(res.body.orders).toMatchObject({ open: 1, late: 1 })
+    expect(res.body.orders.items[0]).toMatchObject({ number: 'PO-0001', status: 'sent', late: true, supplierName: 'Brassworks Metal Stockholders (invented)' })
     expect(res.body.expiryWarningDays).toBe(30)
   })
 

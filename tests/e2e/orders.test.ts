@@ -65,9 +65,9 @@ describe('from the low-stock e-mail to received goods, in Chromium', () => {
     await sink.waitFor(2, 20_000)
     const order = parseMail(sink.messages[1].raw)
     expect(sink.messages[1].to).toEqual(['orders@wyvern-models.example'])
-    expect(order.subject).toMatch(/^Purchase order PO-0001 from /)
+    expect(order.subject).toMatch(/^Purchase order PO-0002 from /)
     expect(order.text).toContain(`(our code ${PART}): 10 pack(s) of 1 pcs at 0.30 a pack = 3.00`)
-    expect(order.attachments.map((a) => a.filename)).toEqual(['PO-0001.pdf'])
+    expect(order.attachments.map((a) => a.filename)).toEqual(['PO-0002.pdf'])
 
     await page.getByTestId('receive-order').click()
     await page.getByRole('button', { name: 'Receive into stock' }).click()
