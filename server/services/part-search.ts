@@ -16,9 +16,9 @@ const SIZE_TOLERANCE = 0.01
 const MIN_SIZE_TOLERANCE_MM = 0.005
 /**
  * Candidates ranked with fuse.js in one search: the best by word-match score. The rest follow
- * in word-match order; fuse costs about 0.1 ms a candidate, so this keeps a search near 10 ms.
+ * in word-match order; fuse costs about 0.05 ms a candidate, so this keeps ranking near 5 ms.
  */
-const RANK_LIMIT = 150
+const RANK_LIMIT = 100
 /** fuse.js: 0 is an exact match, 1 anything; 0.45 keeps one- and two-letter slips. */
 const FUSE_THRESHOLD = 0.45
 /** fuse.js key weights: a part is named for what it is; codes and tags help. */
