@@ -105,3 +105,44 @@ describe('low-stock alerts and the digest e-mail', () => {
     expect((await anonymous.post('/api/alerts/digest')).status).toBe(401)
   })
 })
+
+describe('shortage and expiry alerts', () => {
+  it('opens a shortage alert when a build cannot reserve all it needs, and clears it once reserved', async () => {
+    const user = await t.dataSource.getRepository(User).findOneByOrFail({ username: demoUser('storekeeper').username })
+    const supplierId = (await keeper.get('/api/suppliers')).body.items[0].id
+    const studs = await stockedPart({
+      name: '5BA stud 25 mm, mild steel', attributes: { kind: 'fastener', type: 'stud', thread: '5BA', lengthMm: 25, material: 'mild steel' },
+    }, { supplierId, binId: bin.id, quantity: 20, packSize: 10, packPrice: 1.2, userId: user.id })
+    const build = (await builder.post('/api/builds', { name: 'Stuart 10V (test)' })).body
+    const line = (await builder.post(`/api/builds/${build.id}/lines`, { partId: studs.id, quantity: 30 })).body
+    const lineId = line.id ?? line.lines?.find((l: { partId: number }) => l.partId === studs.id)?.id
+    expect((await builder.post(`/api/builds/${build.id}/reserve`, { allowPartial: true })).status).toBe(200)
+    const open = (await keeper.get('/api/alerts?kind=shortage')).body.items
+    expect(open).toHaveLength(1)
+    expect(open[0]).toMatchObject({ key: `shortage:${lineId}`, partId: studs.id, buildId: build.id })
+    expect(open[0].message).toBe(`Stuart 10V (test) is short of 10 pcs of ${studs.code} 5BA stud 25 mm, mild steel`)
+    expect((await keeper.post('/api/stock/receive', { partId: studs.id, binId: bin.id, quantity: 10, reason: 'a pack came' })).status).toBe(201)
+    expect((await builder.post(`/api/builds/${build.id}/reserve`, { allowPartial: true })).status).toBe(200)
+    expect((await keeper.get('/api/alerts?kind=shortage')).body.items).toEqual([])
+  })
+
+  it('opens an expiring alert for a batch within the warning window and lists it in the next digest', async () => {
+    const user = await t.dataSource.getRepository(User).findOneByOrFail({ username: demoUser('storekeeper').username })
+    const supplierId = (await keeper.get('/api/suppliers')).body.items[0].id
+    const soon = new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10)
+    const glue = await stockedPart({
+      name: 'Retaining compound, 10 ml', unit: 'bottle', attributes: { kind: 'compound', grade: 'high-strength retaining compound', containerSize: '10 ml' },
+    }, { supplierId, binId: bin.id, quantity: 1, packSize: 1, packPrice: 7, userId: user.id, expiresOn: soon })
+    await settle()
+    const alerts = (await keeper.get('/api/alerts?kind=expiring')).body.items
+    expect(alerts).toHaveLength(1)
+    expect(alerts[0]).toMatchObject({ partId: glue.id })
+    const before = sink.messages.length
+    expect((await keeper.post('/api/alerts/digest')).body).toMatchObject({ sent: true })
+    await sink.waitFor(before + 1)
+    const mail = parseMail(sink.messages[before].raw)
+    expect(mail.text).toContain('Batches expiring soon:')
+    expect(mail.text).toContain(`- ${glue.code} Retaining compound, 10 ml: batch ${soon} in T1-01 (1 bottle): expires on ${soon}`)
+  })
+})
+
