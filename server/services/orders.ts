@@ -71,7 +71,7 @@ export async function orderDetail(id: number, m: Manager = db().manager): Promis
   const offers = new Map((await m.findBy(SupplierPart, { supplierId: order.supplierId, partId: In(lines.map((l) => l.partId)) })).map((o) => [o.partId, o]))
   const supplier = await m.findOneBy(Supplier, { id: order.supplierId })
   const homes = await homeBins(m, lines.map((l) => l.partId))
-  const emails = await m.find(OutboxMessage, { where: { subject: Like(`%${order.number}%`) }, order: { id: 'ASC' } })
+  const emails = await m.find(OutboxMessage, { where: { subject: Like(`% ${order.number} %`) }, order: { id: 'ASC' } })
   return {
     ...summary, notes: order.notes, supplierEmail: supplier?.email ?? '',
     lines: lines.map((l): OrderLineDto => {
