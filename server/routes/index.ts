@@ -44,6 +44,4 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/stocktake', stockTakeRouter)
   app.use('/api/today', todayRouter)
   startNotifications(config)
-  void app
-  void config
 }
