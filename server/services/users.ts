@@ -31,7 +31,33 @@ export async function verifyCredentials(username: string, password: string): Pro
   return (await bcrypt.compare(password, user.passwordHash)) ? user : null
 }
 
-export const findActiveUser = (id: number) => users().findOneBy({ id, active: true })
+/**
+ * Signed-in users by id, so that a request does not read its user from the database each time.
+ * Entries live USER_CACHE_MS at most and are dropped at once when the user is changed here
+ * (deactivated, role or password changed), so a deactivated user is refused on the next request.
+ * Keyed per DataSource: the benchmark and some tests run several databases in one process.
+ */
+const USER_CACHE_MS = 30_000
+const userCache = new WeakMap<object, Map<number, { user: User | null; at: number }>>()
+
+function cacheOf(): Map<number, { user: User | null; at: number }> {
+  const ds = db()
+  let m = userCache.get(ds)
+  if (!m) userCache.set(ds, (m = new Map()))
+  return m
+}
+
+/** Drops a user from the sign-in cache; call after any change to a user row. */
+export const forgetUser = (id: number) => { cacheOf().delete(id) }
+
+export async function findActiveUser(id: number): Promise<User | null> {
+  const cache = cacheOf()
+  const hit = cache.get(id)
+  if (hit && Date.now() - hit.at < USER_CACHE_MS) return hit.user && Object.assign(new User(), hit.user)
+  const user = await users().findOneBy({ id, active: true })
+  cache.set(id, { user, at: Date.now() })
+  return user && Object.assign(new User(), user)
+}
 
 export async function listUsers(): Promise<UserDto[]> {
   return (await users().find({ order: { username: 'ASC' } })).map(toUserDto)
@@ -50,6 +76,7 @@ export async function createUser(input: CreateUserInput): Promise<UserDto> {
     passwordHash: await hashPassword(input.password),
     active: true,
   }))
+  forgetUser(user.id)
   return toUserDto(user)
 }
 
@@ -62,7 +89,9 @@ export async function updateUser(id: number, input: UpdateUserInput, actorId: nu
   const { password, ...rest } = input
   Object.assign(user, rest)
   if (password) user.passwordHash = await hashPassword(password)
-  return toUserDto(await users().save(user))
+  const saved = await users().save(user)
+  forgetUser(id)
+  return toUserDto(saved)
 }
 
 export async function changeOwnPassword(id: number, input: ChangePasswordInput): Promise<void> {
@@ -72,6 +101,7 @@ export async function changeOwnPassword(id: number, input: ChangePasswordInput):
   }
   user.passwordHash = await hashPassword(input.newPassword)
   await users().save(user)
+  forgetUser(id)
 }
 
 /**

@@ -65,6 +65,19 @@ describe('POST /api/auth/logout', () => {
     expect((await c.post('/api/auth/logout')).status).toBe(204)
     expect((await c.get('/api/auth/session')).body.user).toBeNull()
   })
+
+  it('refuses the old cookie after sign-out even when replayed by another client', async () => {
+    const first = await request(t.app).get('/api/auth/session')
+    const anon = String(first.headers['set-cookie']).split(';')[0]
+    const login = await request(t.app).post('/api/auth/login').set('cookie', anon).set('x-csrf-token', first.body.csrfToken)
+      .send({ username: 'builder', password: 'brass-builder-1' })
+    const cookie = String(login.headers['set-cookie']).split(';')[0]
+    expect((await request(t.app).get('/api/builds').set('cookie', cookie)).status).toBe(200)
+    const logout = await request(t.app).post('/api/auth/logout').set('cookie', cookie).set('x-csrf-token', login.body.csrfToken)
+    expect(logout.status).toBe(204)
+    const replay = await request(t.app).get('/api/builds').set('cookie', cookie)
+    expect(replay.status).toBe(401)
+  })
 })
 
 describe('/api/users', () => {
@@ -117,6 +130,29 @@ describe('/api/users', () => {
     const fitter = list.body.find((u: { username: string }) => u.username === 'fitter2')
     expect((await admin.patch(`/api/users/${fitter.id}`, { active: false })).body.active).toBe(false)
     await expect(clientFor(t.app, 'fitter2', 'gland-nut-77')).rejects.toThrow(/401/)
+  })
+
+  it('refuses a signed-in user on the very next request once deactivated', async () => {
+    const admin = await clientAs(t.app, 'admin')
+    const made = await admin.post('/api/users', { username: 'fitter3', displayName: 'B Fitter', role: 'builder', password: 'gland-nut-88' })
+    const fitter = await clientFor(t.app, 'fitter3', 'gland-nut-88')
+    // Two reads, so the user is in the server's sign-in cache before the change.
+    expect((await fitter.get('/api/builds')).status).toBe(200)
+    expect((await fitter.get('/api/auth/session')).body.user.username).toBe('fitter3')
+    await admin.patch(`/api/users/${made.body.id}`, { active: false })
+    const refused = await fitter.get('/api/builds')
+    expect(refused.status).toBe(401)
+    expect(refused.body.error.code).toBe('SIGN_IN_REQUIRED')
+    expect((await fitter.get('/api/auth/session')).body.user).toBeNull()
+  })
+
+  it('applies a role change on the next request of a signed-in user', async () => {
+    const admin = await clientAs(t.app, 'admin')
+    const made = await admin.post('/api/users', { username: 'fitter4', displayName: 'C Fitter', role: 'viewer', password: 'gland-nut-99' })
+    const fitter = await clientFor(t.app, 'fitter4', 'gland-nut-99')
+    expect((await fitter.get('/api/auth/session')).body.user.role).toBe('viewer')
+    await admin.patch(`/api/users/${made.body.id}`, { role: 'storekeeper' })
+    expect((await fitter.get('/api/auth/session')).body.user.role).toBe('storekeeper')
   })
 })
 
