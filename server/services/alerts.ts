@@ -74,22 +74,21 @@ async function expiryConditions(tx: EntityManager, partIds: number[], parts: Map
  * unique among open alerts, so a condition alerts once), a condition gone resolves its alert.
  */
 export async function refreshAlerts(partIds: number[], now = new Date()): Promise<void> {
-  const ids = [...new Set(partIds)]
-  for (const chunk of chunks(ids)) {
-    await inTransaction(async (tx) => {
-      const wanted = new Map((await conditionsFor(tx, chunk, now)).map((c) => [c.key, c]))
-      const open = await tx.findBy(Alert, { partId: In(chunk), resolvedAt: IsNull() })
-      const stamp = now.toISOString()
-      for (const a of open) {
-        const c = wanted.get(a.key)
-        if (!c) await tx.update(Alert, { id: a.id }, { resolvedAt: stamp })
-        else if (c.message.slice(0, MESSAGE_MAX) !== a.message) await tx.update(Alert, { id: a.id }, { message: c.message.slice(0, MESSAGE_MAX) })
-        wanted.delete(a.key)
-      }
-      for (const c of wanted.values()) {
-        await tx.insert(Alert, { ...c, message: c.message.slice(0, MESSAGE_MAX), resolvedAt: null, emailedAt: null })
-      }
-    })
+  for (const chunk of chunks([...new Set(partIds)])) await inTransaction((tx) => refreshChunk(tx, chunk, now))
+}
+
+async function refreshChunk(tx: EntityManager, chunk: number[], now: Date) {
+  const wanted = new Map((await conditionsFor(tx, chunk, now)).map((c) => [c.key, c]))
+  const open = await tx.findBy(Alert, { partId: In(chunk), resolvedAt: IsNull() })
+  const stamp = now.toISOString()
+  for (const a of open) {
+    const c = wanted.get(a.key)
+    if (!c) await tx.update(Alert, { id: a.id }, { resolvedAt: stamp })
+    else if (c.message.slice(0, MESSAGE_MAX) !== a.message) await tx.update(Alert, { id: a.id }, { message: c.message.slice(0, MESSAGE_MAX) })
+    wanted.delete(a.key)
+  }
+  for (const c of wanted.values()) {
+    await tx.insert(Alert, { ...c, message: c.message.slice(0, MESSAGE_MAX), resolvedAt: null, emailedAt: null })
   }
 }
 
@@ -114,10 +113,32 @@ export function track(work: Promise<unknown>): Promise<void> {
   return p
 }
 
-/** Follows every committed stock or reservation change (stockEvents from server/db). */
+/** Parts changed since the queued refresh was started; undefined when none is queued. */
+let waiting: Set<number> | undefined
+
+/**
+ * Follows every committed stock or reservation change (stockEvents from server/db). Changes
+ * that commit while a refresh waits for its turn in the write queue join that refresh, so a
+ * burst of 200 reservations costs one or two refreshes, not 200 turns of the queue.
+ */
 export function watchStockForAlerts() {
   if (listener) stockEvents.off('stock-changed', listener)
-  listener = (ids: number[]) => { void track(refreshAlerts(ids)) }
+  waiting = undefined
+  listener = (ids: number[]) => {
+    if (waiting) {
+      for (const id of ids) waiting.add(id)
+      return
+    }
+    const batch = new Set(ids)
+    waiting = batch
+    void track(inTransaction(async (tx) => {
+      // From its turn on, new changes start a new refresh: this one may already have read them.
+      if (waiting === batch) waiting = undefined
+      const all = [...batch]
+      await refreshChunk(tx, all.slice(0, CHUNK), new Date())
+      return all.slice(CHUNK)
+    }).then((rest) => refreshAlerts(rest)))
+  }
   stockEvents.on('stock-changed', listener)
 }
 

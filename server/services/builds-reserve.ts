@@ -1,5 +1,5 @@
 import { In, type EntityManager } from 'typeorm'
-import { inTransaction, touchPart } from '../db'
+import { db, inTransaction, touchPart } from '../db'
 import { BuildLine, Part, Reservation, type Build } from '../entities'
 import { conflict } from '../errors'
 import { stockTotalsOf } from './stock-totals'
@@ -72,16 +72,18 @@ function insufficient(build: Build, short: Grant[]) {
  * allowPartial any shortfall refuses the whole request with 409 naming each shortfall and
  * changes nothing; with it, what there is is held and the rest recorded as the line's shortage.
  */
-export const reserve = (buildId: number, raw: ReserveInput, actor: Actor): Promise<ReserveResultDto> =>
-  inTransaction(async (tx) => {
+export async function reserve(buildId: number, raw: ReserveInput, actor: Actor): Promise<ReserveResultDto> {
+  const { build, grants } = await inTransaction(async (tx) => {
     const input = reserveInput.parse(raw)
     const build = await editableBuild(tx, buildId, actor)
-    const grants = await reserveIn(tx, build, input, actor.id)
-    return {
-      lines: grants.map((g) => ({ lineId: g.lineId, partCode: g.partCode, requested: g.requested, granted: g.granted, shortQuantity: g.shortQuantity })),
-      build: await toDetail(tx, build, actor),
-    }
+    return { build, grants: await reserveIn(tx, build, input, actor.id) }
   })
+  return {
+    lines: grants.map((g) => ({ lineId: g.lineId, partCode: g.partCode, requested: g.requested, granted: g.granted, shortQuantity: g.shortQuantity })),
+    // Read after the commit, outside the write queue: the next writer need not wait for it.
+    build: await toDetail(db().manager, build, actor),
+  }
+}
 
 /** The reservation itself, inside the caller's transaction (the demo seed uses it too). */
 export async function reserveIn(tx: EntityManager, build: Build, raw: ReserveInput, userId: number): Promise<Grant[]> {
