@@ -1,4 +1,5 @@
-import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
+import { createRouter, createWebHistory, type RouteLocationNormalized, type RouteRecordRaw } from 'vue-router'
+import { prefetchBin } from '../api/prefetch'
 import { useSessionStore } from '../stores/session'
 import type { Role } from '../../shared/types/api'
 
@@ -38,8 +39,21 @@ const routes: RouteRecordRaw[] = [
 
 export const router = createRouter({ history: createWebHistory(), routes })
 
+/**
+ * Starts fetching the target view's chunk (and, for a bin page, the bin's contents) at once:
+ * vue-router would load the chunk only after the guards, and the view its data after mounting.
+ */
+function warm(to: RouteLocationNormalized) {
+  for (const record of to.matched) {
+    const load = record.components?.default
+    if (typeof load === 'function' && !('render' in load) && !('setup' in load)) void (load as () => Promise<unknown>)().catch(() => undefined)
+  }
+  if (to.path.startsWith('/bins/') && typeof to.params.code === 'string') prefetchBin(to.params.code)
+}
+
 router.beforeEach(async (to) => {
   const session = useSessionStore()
+  warm(to)
   if (!session.loaded) await session.load().catch(() => undefined)
   if (to.meta.public) return true
   if (!session.signedIn) return { path: '/login', query: { next: to.fullPath } }
