@@ -115,6 +115,7 @@ declare module 'vue' {
     PartQueryChips: typeof import('./components/parts/PartQueryChips.vue')['default']
     PartReservationsPanel: typeof import('./components/PartReservationsPanel.vue')['default']
     PartSupplyPanel: typeof import('./components/PartSupplyPanel.vue')['default']
+    PlaceForm: typeof import('./components/bins/PlaceForm.vue')['default']
     PlaceTree: typeof import('./components/bins/PlaceTree.vue')['default']
     PlusOutlined: typeof import('@ant-design/icons-vue')['PlusOutlined']
     PrinterOutlined: typeof import('@ant-design/icons-vue')['PrinterOutlined']
