@@ -79,7 +79,7 @@ const describeFindings = (found: Finding[]) => found.map((f) => `${f.impact} ${f
 
 describe('axe-core on every main screen', () => {
   it('finds no serious or critical WCAG A/AA violation on the sign-in page', async () => {
-    const page = await browser.newPage({ viewport: PHONE, bypassCSP: true })
+    const page = await browser.newPage({ viewport: PHONE, bypassCSP: true, reducedMotion: 'reduce' })
     await page.goto(`${server.url}/login`)
     await page.getByTestId('username').waitFor()
     expect(describeFindings(blocking(await axe(page)))).toBe('')
@@ -89,8 +89,8 @@ describe('axe-core on every main screen', () => {
   for (const role of ['builder', 'storekeeper', 'admin', 'viewer'] as Role[]) {
     const screens = SCREENS.filter((s) => s.role === role)
     it(`finds no serious or critical WCAG A/AA violation on ${screens.map((s) => s.name).join(', ')} (${role})`, async () => {
-      const desk = await browser.newContext({ viewport: DESKTOP, bypassCSP: true })
-      const phone = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true, bypassCSP: true })
+      const desk = await browser.newContext({ viewport: DESKTOP, bypassCSP: true, reducedMotion: 'reduce' })
+      const phone = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true, bypassCSP: true, reducedMotion: 'reduce' })
       const deskPage = await desk.newPage()
       const phonePage = await phone.newPage()
       await signIn(deskPage, server.url, role)
