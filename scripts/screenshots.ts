@@ -7,7 +7,7 @@
 import { mkdirSync } from 'node:fs'
 import type { Browser, Page } from 'playwright-core'
 import { startServer } from '../tests/helpers/server'
-import { DESKTOP, PHONE, launchBrowser, signIn } from '../tests/helpers/browser'
+import { PHONE, launchBrowser, openScreen, signedInPage } from '../tests/helpers/browser'
 import type { Role } from '../shared/types/api'
 
 const OUT_DIR = 'docs/screenshots'
@@ -49,12 +49,9 @@ async function shoot(browser: Browser, url: string, role: Role, shots: Shot[]) {
   for (const phone of [false, true]) {
     const mine = shots.filter((s) => !!s.phone === phone)
     if (!mine.length) continue
-    const context = await browser.newContext({ viewport: phone ? PHONE : DESKTOP, isMobile: phone, hasTouch: phone, deviceScaleFactor: 1 })
-    const page = await context.newPage()
-    await signIn(page, url, role)
+    const page = await signedInPage(browser, url, role, phone, { deviceScaleFactor: 1 })
     for (const s of mine) {
-      await page.goto(`${url}${s.path}`)
-      await page.locator(s.ready).first().waitFor()
+      await openScreen(page, url, s.path, s.ready)
       await s.prepare?.(page)
       // Let web fonts and chart animations settle without a fixed sleep.
       await page.evaluate(() => document.fonts.ready)
@@ -62,7 +59,7 @@ async function shoot(browser: Browser, url: string, role: Role, shots: Shot[]) {
       await page.screenshot({ path: `${OUT_DIR}/${s.file}.png`, animations: 'disabled' })
       console.log(`wrote ${OUT_DIR}/${s.file}.png (${role})`)
     }
-    await context.close()
+    await page.context().close()
   }
 }
 

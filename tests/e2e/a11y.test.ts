@@ -4,16 +4,18 @@
  * reachable with Tab and show a focus ring.
  */
 import { createRequire } from 'node:module'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, openScreen, signedInPage } from '../helpers/browser'
 import type { Role } from '../../shared/types/api'
 
 const AXE = createRequire(import.meta.url).resolve('axe-core')
 /** axe's tags for WCAG 2.0 / 2.1 levels A and AA, the level the issue asks for. */
 const WCAG_AA = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']
 const BLOCKING = new Set(['serious', 'critical'])
+/** Scripts axe injects must run; transitions are off so axe reads settled colours. */
+const AXE_CONTEXT = { bypassCSP: true, reducedMotion: 'reduce' } as const
 
 interface Screen { name: string; path: string; role: Role; ready: string; phone?: boolean }
 const SCREENS: Screen[] = [
@@ -63,24 +65,15 @@ async function axe(page: Page): Promise<Finding[]> {
   }, { tags: WCAG_AA, faults: LIBRARY_FAULTS })
 }
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 const blocking = (found: Finding[]) => found.filter((f) => BLOCKING.has(f.impact))
 const describeFindings = (found: Finding[]) => found.map((f) => `${f.impact} ${f.id}: ${f.help} — ${f.nodes.join(' | ')}`).join('\n')
 
 describe('axe-core on every main screen', () => {
   it('finds no serious or critical WCAG A/AA violation on the sign-in page', async () => {
-    const page = await browser.newPage({ viewport: PHONE, bypassCSP: true, reducedMotion: 'reduce' })
-    await page.goto(`${server.url}/login`)
+    const page = await app.browser.newPage({ viewport: PHONE, ...AXE_CONTEXT })
+    await page.goto(`${app.url}/login`)
     await page.getByTestId('username').waitFor()
     expect(describeFindings(blocking(await axe(page)))).toBe('')
     await page.close()
@@ -89,32 +82,25 @@ describe('axe-core on every main screen', () => {
   for (const role of ['builder', 'storekeeper', 'admin', 'viewer'] as Role[]) {
     const screens = SCREENS.filter((s) => s.role === role)
     it(`finds no serious or critical WCAG A/AA violation on ${screens.map((s) => s.name).join(', ')} (${role})`, async () => {
-      const desk = await browser.newContext({ viewport: DESKTOP, bypassCSP: true, reducedMotion: 'reduce' })
-      const phone = await browser.newContext({ viewport: PHONE, isMobile: true, hasTouch: true, bypassCSP: true, reducedMotion: 'reduce' })
-      const deskPage = await desk.newPage()
-      const phonePage = await phone.newPage()
-      await signIn(deskPage, server.url, role)
-      await signIn(phonePage, server.url, role)
+      const deskPage = await signedInPage(app.browser, app.url, role, false, AXE_CONTEXT)
+      const phonePage = await signedInPage(app.browser, app.url, role, true, AXE_CONTEXT)
       const report: string[] = []
       for (const s of screens) {
         const page = s.phone ? phonePage : deskPage
-        await page.goto(`${server.url}${s.path}`)
-        await page.locator(s.ready).first().waitFor()
+        await openScreen(page, app.url, s.path, s.ready)
         const found = blocking(await axe(page))
         if (found.length) report.push(`${s.name} (${s.path}):\n${describeFindings(found)}`)
       }
       expect(report.join('\n\n')).toBe('')
-      await desk.close()
-      await phone.close()
+      await deskPage.context().close()
+      await phonePage.context().close()
     })
   }
 })
 
 describe('keyboard', () => {
   it('reaches the main navigation and a page\'s primary action with Tab, each with a visible focus ring', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'builder')
-    await page.goto(`${server.url}/builds`)
+    const page = await app.openAs('builder', { path: '/builds' })
     await page.getByTestId('new-build').waitFor()
     const seen: { text: string; outline: string; shadow: string }[] = []
     for (let i = 0; i < 40 && !seen.some((s) => /New build/.test(s.text)); i++) {

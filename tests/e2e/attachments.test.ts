@@ -1,32 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, screenshot } from '../helpers/browser'
 import { jpegBytes, pdfBytes, pngBytes, withExifOrientation } from '../helpers/images'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-}, 90_000)
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 /** An id looked up through the API with the page's own session. */
 async function apiFirst(page: Page, path: string, pick: (item: { id: number; ownerName?: string; name: string }) => boolean) {
-  const body = await (await page.request.get(`${server.url}/api${path}`)).json()
+  const body = await (await page.request.get(`${app.url}/api${path}`)).json()
   return (body.items as { id: number; name: string }[]).find(pick)!.id
 }
 
 describe('drawings and sketches in Chromium', () => {
   it('lets a storekeeper add a photo, a PDF and see a refusal; view full size; delete after asking', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
+    const page = await app.openAs('storekeeper')
     const partId = await apiFirst(page, '/parts?q=whistle', () => true)
-    await page.goto(`${server.url}/parts/${partId}`)
+    await page.goto(`${app.url}/parts/${partId}`)
     await page.getByTestId('attachment-drop').waitFor()
     expect(await page.getByTestId('attachment-drop').innerText()).toMatch(/PDF drawings, up to 20 MB each/)
 
@@ -60,11 +50,10 @@ describe('drawings and sketches in Chromium', () => {
   }, 90_000)
 
   it("lets a builder on a phone add to their own build, and shows no upload on someone else's", async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'builder')
+    const page = await app.openAs('builder', { viewport: PHONE })
     const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Twin-cylinder launch engine'))
     const others = await apiFirst(page, '/builds', (b) => b.name.startsWith('Single oscillating engine'))
-    await page.goto(`${server.url}/builds/${own}`)
+    await page.goto(`${app.url}/builds/${own}`)
     await page.getByTestId('attachment-input').setInputFiles({ name: 'crankshaft.png', mimeType: 'image/png', buffer: await pngBytes(900, 600) })
     // Below the fold on a phone, and lazy-loaded: wait for it to exist, then bring it into view.
     const thumb = page.locator('img[alt="crankshaft.png"]')
@@ -72,17 +61,16 @@ describe('drawings and sketches in Chromium', () => {
     await thumb.scrollIntoViewIfNeeded()
     await thumb.waitFor()
     await screenshot(page, 'attachments-build-builder-phone')
-    await page.goto(`${server.url}/builds/${others}`)
+    await page.goto(`${app.url}/builds/${others}`)
     await page.getByText(/No drawings or sketches yet|Drawings/).first().waitFor()
     expect(await page.getByTestId('attachment-input').count()).toBe(0)
     await page.close()
   }, 60_000)
 
   it('shows a viewer on a phone the thumbnails but no upload or delete', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'viewer')
+    const page = await app.openAs('viewer', { viewport: PHONE })
     const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Twin-cylinder launch engine'))
-    await page.goto(`${server.url}/builds/${own}`)
+    await page.goto(`${app.url}/builds/${own}`)
     await page.locator('img[alt="crankshaft.png"]').waitFor({ timeout: 30_000 })
     expect(await page.getByTestId('attachment-input').count()).toBe(0)
     expect(await page.getByRole('button', { name: /^Delete / }).count()).toBe(0)

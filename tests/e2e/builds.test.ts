@@ -1,18 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, screenshot } from '../helpers/browser'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 /** An input by test id, whether the id sits on the input or on its wrapper (a-input-number). */
 const field = (page: Page, id: string) => page.locator(`input[data-testid="${id}"], [data-testid="${id}"] input`).first()
@@ -34,9 +25,7 @@ const lineRow = (page: Page, code: RegExp) => page.locator('[data-testid="bom-ta
 
 describe('a builder\'s build in Chromium', () => {
   it('creates a build, adds three lines by search, reserves all, sees the shortage, draws a line, and the part page shows the new on hand', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'builder')
-    await page.goto(`${server.url}/builds`)
+    const page = await app.openAs('builder', { path: '/builds' })
     await page.getByTestId('new-build').click()
     await page.getByTestId('build-name').fill('Horizontal mill engine')
     await page.getByRole('button', { name: 'Open the build' }).click()
@@ -76,9 +65,7 @@ describe('a builder\'s build in Chromium', () => {
   })
 
   it('shows the build list with progress on a phone', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'builder')
-    await page.goto(`${server.url}/builds`)
+    const page = await app.openAs('builder', { path: '/builds', viewport: PHONE })
     await page.getByRole('link', { name: 'Horizontal mill engine' }).first().waitFor()
     expect(await page.locator('.build-progress').first().innerText()).toMatch(/lines held/)
     await screenshot(page, 'builds-list-phone')

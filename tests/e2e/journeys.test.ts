@@ -8,13 +8,14 @@ import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Locator, Page } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
+import type { Locator, Page } from 'playwright-core'
+import { useBrowserSuite } from '../helpers/browser-suite'
 import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
 import { parseMail } from '../helpers/mail'
 import { openPdf, pageText } from '../helpers/pdf-labels'
 import { writeQrY4m } from '../helpers/qr-video'
 import { demoUser } from '../helpers/app'
+import type { Role } from '../../shared/types/api'
 import { startMailSink, type MailSink } from '../../server/services/mail-sink'
 
 /** The launch engine of the demo (the builder's active build) needs 24 of these and holds none. */
@@ -23,15 +24,8 @@ const NUT = /^7BA-NUT/
 const LOW_PART = 'GSK-0.25-PAP'
 
 let sink: MailSink
-let browser: Browser
-beforeAll(async () => {
-  sink = await startMailSink()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await sink?.close()
-})
+beforeAll(async () => { sink = await startMailSink() })
+afterAll(async () => { await sink?.close() })
 
 /** An input by test id, whether the id sits on the input or on its wrapper (a-input-number). */
 const field = (page: Page, id: string) => page.locator(`input[data-testid="${id}"], [data-testid="${id}"] input`).first()
@@ -87,29 +81,24 @@ async function addBySearch(page: Page, query: string, code: RegExp, quantity: nu
 
 function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
   describe(`the three journeys on a ${label}`, () => {
-    let server: RunningServer
-    beforeAll(async () => {
-      server = await startServer({ SMTP_HOST: sink.host, SMTP_PORT: String(sink.port) })
-    })
-    afterAll(async () => { await server?.stop() })
-    const newPage = () => browser.newPage({ viewport, hasTouch: phone, isMobile: phone })
+    const app = useBrowserSuite(() => ({ SMTP_HOST: sink.host, SMTP_PORT: String(sink.port) }))
+    const openAs = (role: Role, path?: string) => app.openAs(role, { path, viewport, hasTouch: phone, isMobile: phone })
 
     it('1. scan a bin label: a builder types the code as a scanner would and draws two nuts held for the build', async () => {
-      const page = await newPage()
-      await signIn(page, server.url, 'builder')
+      const page = await openAs('builder')
       // The demo's launch engine holds no nuts yet: reserve its nut line first, from the build.
-      await openLaunchBuild(page, server.url)
+      await openLaunchBuild(page, app.url)
       await lineRow(page, NUT).getByRole('button', { name: 'Reserve' }).click()
       await expect.poll(() => figure(lineRow(page, NUT), 'held')).toBe('24 pcs')
 
-      await page.goto(`${server.url}/scan`)
+      await page.goto(`${app.url}/scan`)
       await page.getByTestId('scan-input').pressSequentially('A1-03')
       await page.getByTestId('scan-input').press('Enter')
       await page.waitForURL((u) => u.pathname === '/bins/A1-03')
       await drawTwoNutsAtBin(page, `journey-scan-${label}`)
 
       // The build shows the draw: 2 drawn, 22 still held.
-      await openLaunchBuild(page, server.url)
+      await openLaunchBuild(page, app.url)
       const row = lineRow(page, NUT)
       await expect.poll(() => figure(row, 'drawn')).toBe('2 pcs')
       expect(await figure(row, 'held')).toBe('22 pcs')
@@ -118,9 +107,8 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
 
     if (!phone) {
       it('1b. scan a bin label with the camera: a fake camera showing the QR label opens the bin page', async () => {
-        const probe = await newPage()
-        await signIn(probe, server.url, 'builder')
-        const bin = await (await probe.request.get(`${server.url}/api/bins/A1-03`)).json()
+        const probe = await openAs('builder')
+        const bin = await (await probe.request.get(`${app.url}/api/bins/A1-03`)).json()
         await probe.close()
         const dir = mkdtempSync(join(tmpdir(), 'binwright-qr-'))
         const video = join(dir, 'label.y4m')
@@ -130,8 +118,8 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
         ])
         try {
           const page = await cameraBrowser.newPage({ viewport })
-          await signIn(page, server.url, 'builder')
-          await page.goto(`${server.url}/scan`)
+          await signIn(page, app.url, 'builder')
+          await page.goto(`${app.url}/scan`)
           await page.getByTestId('camera-start').click()
           await page.waitForURL((u) => u.pathname === '/bins/A1-03', { timeout: 20_000 })
           expect(await page.getByTestId('bin-code').innerText()).toBe('A1-03')
@@ -144,9 +132,7 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
     }
 
     it('2. reserve fasteners for a build: a new twin-cylinder build, four lines by trade queries, a shortage, a cutting plan printed', async () => {
-      const page = await newPage()
-      await signIn(page, server.url, 'builder')
-      await page.goto(`${server.url}/builds`)
+      const page = await openAs('builder', '/builds')
       await page.getByTestId('new-build').click()
       const name = `Twin-cylinder horizontal engine (${label})`
       await page.getByTestId('build-name').fill(name)
@@ -194,9 +180,7 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
     })
 
     it('3. reorder when the low-stock e-mail arrives: from the digest link to a received order, and Today clears', async () => {
-      const page = await newPage()
-      await signIn(page, server.url, 'storekeeper')
-      await page.goto(`${server.url}/orders`)
+      const page = await openAs('storekeeper', '/orders')
       const before = sink.messages.length
       await page.getByTestId('send-digest').click()
       await sink.waitFor(before + 1, 20_000)
@@ -205,8 +189,8 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
       expect(digest.text).toContain(`${LOW_PART} Valve chest gasket 0.25 mm, gasket paper: 3 pcs available (on hand 3, reserved 0), reorder point 4`)
       // The link names the server as the e-mail's reader sees it; follow it on this server's address.
       const link = new URL(/(http:\/\/\S+\/orders\?suggest=1)/.exec(digest.text)![1])
-      expect(link.port).toBe(new URL(server.url).port)
-      await page.goto(`${server.url}${link.pathname}${link.search}`)
+      expect(link.port).toBe(new URL(app.url).port)
+      await page.goto(`${app.url}${link.pathname}${link.search}`)
 
       const group = page.locator('[data-testid^="suggestions-"]', { hasText: LOW_PART })
       await group.waitFor()
@@ -228,9 +212,9 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
       await expect.poll(() => page.getByTestId(`received-${LOW_PART}`).innerText()).toBe('10')
       await screenshot(page, `journey-order-${label}`)
 
-      const bin = await (await page.request.get(`${server.url}/api/bins/A3-02`)).json()
+      const bin = await (await page.request.get(`${app.url}/api/bins/A3-02`)).json()
       expect(bin.lines.find((l: { partCode: string }) => l.partCode === LOW_PART).quantity).toBe(13)
-      await page.goto(`${server.url}/`)
+      await page.goto(`${app.url}/`)
       await page.getByTestId('today-low').waitFor()
       await expect.poll(() => page.getByTestId('today-low').innerText()).not.toContain(LOW_PART)
       expect(await page.locator('.page').innerText()).not.toContain(LOW_PART)

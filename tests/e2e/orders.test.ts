@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { DESKTOP, PHONE, screenshot } from '../helpers/browser'
 import { parseMail } from '../helpers/mail'
 import { startMailSink, type MailSink } from '../../server/services/mail-sink'
 import { demoUser } from '../helpers/app'
@@ -9,27 +8,16 @@ import { demoUser } from '../helpers/app'
 /** The valve chest gasket of the demo: 3 in stock, reorder point 4, so low from the start. */
 const PART = 'GSK-0.25-PAP'
 let sink: MailSink
-let server: RunningServer
-let browser: Browser
-
-beforeAll(async () => {
-  sink = await startMailSink()
-  server = await startServer({ SMTP_HOST: sink.host, SMTP_PORT: String(sink.port) })
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-  await sink?.close()
-})
+beforeAll(async () => { sink = await startMailSink() })
+afterAll(async () => { await sink?.close() })
+// Registered after the sink's hooks, so the server starts after it and stops before it.
+const app = useBrowserSuite(() => ({ SMTP_HOST: sink.host, SMTP_PORT: String(sink.port) }))
 
 describe('from the low-stock e-mail to received goods, in Chromium', () => {
   let ordersLink = ''
 
   it('sends the alert digest to the storekeeper when asked', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/orders`)
+    const page = await app.openAs('storekeeper', { path: '/orders' })
     await page.getByTestId('send-digest').click()
     await sink.waitFor(1, 20_000)
     const mail = parseMail(sink.messages[0].raw)
@@ -41,7 +29,7 @@ describe('from the low-stock e-mail to received goods, in Chromium', () => {
   })
 
   it('opens the e-mail link signed out, signs in, and finds the part among the suggestions', async () => {
-    const context = await browser.newContext({ viewport: DESKTOP })
+    const context = await app.browser.newContext({ viewport: DESKTOP })
     const page = await context.newPage()
     await page.goto(ordersLink)
     await page.waitForURL((u) => u.pathname === '/login')
@@ -84,8 +72,7 @@ describe('from the low-stock e-mail to received goods, in Chromium', () => {
   })
 
   it('shows Today to a builder on a phone, without order links', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'builder')
+    const page = await app.openAs('builder', { viewport: PHONE })
     await page.getByTestId('today-expiry').waitFor()
     expect(await page.locator('a[href^="/orders"]').count()).toBe(0)
     await screenshot(page, 'today-builder-phone')

@@ -1,28 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, screenshot } from '../helpers/browser'
 import { picture } from '../helpers/images'
 
 /** The machine is shared with other test runs: allow for a slow page. */
 const POLL = { timeout: 30_000 }
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-}, 90_000)
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 describe('the parts screens in Chromium', () => {
   it('lets a storekeeper create a part, find it, receive it into a bin and add a sketch', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/parts`)
+    const page = await app.openAs('storekeeper', { path: '/parts' })
     await page.getByTestId('new-part').click()
     const form = page.getByTestId('part-form')
     /** ant-design puts a data-testid on the <input> itself or on its wrapper, depending on the control. */
@@ -39,7 +27,7 @@ describe('the parts screens in Chromium', () => {
     const partUrl = page.url()
     await expect.poll(() => page.getByTestId('part-title').innerText(), POLL).toContain('3BA-STUD-25-PB')
 
-    await page.goto(`${server.url}/parts`)
+    await page.goto(`${app.url}/parts`)
     await page.getByTestId('part-search').fill('3ba stud pb')
     await expect.poll(() => page.getByTestId('query-chips').innerText(), POLL).toContain('thread 3BA')
     await expect.poll(() => page.locator('[data-testid^="part-row-"]').count(), POLL).toBe(1)
@@ -48,7 +36,7 @@ describe('the parts screens in Chromium', () => {
     await page.waitForURL(partUrl)
 
     // Receiving into a bin uses the Bins screen (engineer S), which finds the part with PartPicker.
-    await page.goto(`${server.url}/bins?bin=A1-11`)
+    await page.goto(`${app.url}/bins?bin=A1-11`)
     await page.getByTestId('receive').click()
     await page.locator('.ant-modal input[data-testid="part-picker"], .ant-modal [data-testid="part-picker"] input').first().fill('3BA-STUD-25-PB')
     await page.locator('.ant-select-item-option', { hasText: '3BA-STUD-25-PB' }).click()
@@ -69,9 +57,7 @@ describe('the parts screens in Chromium', () => {
   }, 240_000)
 
   it('moves through results with the arrow keys and shows what the query was read as', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'builder')
-    await page.goto(`${server.url}/parts`)
+    const page = await app.openAs('builder', { path: '/parts' })
     const search = page.getByTestId('part-search')
     await search.fill('7ba')
     await page.getByTestId('part-row-7BA-WASHER-BR').waitFor()
@@ -91,16 +77,14 @@ describe('the parts screens in Chromium', () => {
   }, 120_000)
 
   it('shows a viewer no edit controls, on the list or on a part, on a phone', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'viewer')
-    await page.goto(`${server.url}/parts?q=whistle`)
+    const page = await app.openAs('viewer', { path: '/parts?q=whistle', viewport: PHONE })
     await page.getByTestId('part-row-OTH-WHISTLEVALVE').click()
     await page.getByTestId('caution-pressure').waitFor()
     await page.getByTestId('part-attributes').waitFor()
     expect(await page.getByTestId('part-edit-controls').count()).toBe(0)
     expect(await page.getByTestId('attachment-input').count()).toBe(0)
     await screenshot(page, 'parts-detail-viewer-phone')
-    await page.goto(`${server.url}/parts`)
+    await page.goto(`${app.url}/parts`)
     await page.getByTestId('part-search').waitFor()
     expect(await page.getByTestId('new-part').count()).toBe(0)
     expect(await page.getByTestId('csv-open').count()).toBe(0)

@@ -1,25 +1,12 @@
 /** The ways in that a new user's read-through found missing: racks and workshops, stock-take, the outbox. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, launchBrowser, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import { useBrowserSuite } from '../helpers/browser-suite'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 describe('ways in from Bins and Admin', () => {
   it('lets a storekeeper add a workshop and a rack in it from Bins, and reach the stock-take', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/bins`)
+    const page = await app.openAs('storekeeper', { path: '/bins' })
     await page.getByTestId('new-workshop').click()
     await page.getByTestId('place-name').fill('Boiler shop')
     await page.getByRole('button', { name: 'Add' }).click()
@@ -32,7 +19,7 @@ describe('ways in from Bins and Admin', () => {
     await page.getByTestId('place-name').fill('Shelf D1 — copper tube')
     await page.getByRole('button', { name: 'Add' }).click()
     await page.locator('.ant-tree').getByText(/D1 · Shelf D1 — copper tube/).waitFor()
-    const tree = await (await page.request.get(`${server.url}/api/bins`)).json()
+    const tree = await (await page.request.get(`${app.url}/api/bins`)).json()
     const shop = tree.workshops.find((w: { name: string }) => w.name === 'Boiler shop')
     expect(shop.racks.map((r: { code: string }) => r.code)).toEqual(['D1'])
 
@@ -43,9 +30,7 @@ describe('ways in from Bins and Admin', () => {
   })
 
   it('takes an admin from Admin to the outbox', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'admin')
-    await page.goto(`${server.url}/admin`)
+    const page = await app.openAs('admin', { path: '/admin' })
     await page.getByTestId('go-outbox').click()
     await page.waitForURL((u) => u.pathname === '/admin/outbox')
     await page.close()

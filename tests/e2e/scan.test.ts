@@ -1,29 +1,18 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, screenshot } from '../helpers/browser'
 import { decodeQrIn, openPdf } from '../helpers/pdf-labels'
 import { findSheet, positionOf } from '../../shared/domain/label-sheets'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 const onHand = (page: Page, partCode: string) =>
   page.getByTestId(`line-${partCode}`).getByTestId('on-hand').innerText()
 
 describe('scanning a label on a phone (390 × 844)', () => {
   it('opens a bin from a typed code, takes one, and shows on hand falling and the movement', async () => {
-    const page = await browser.newPage({ viewport: PHONE, hasTouch: true, isMobile: true })
-    await signIn(page, server.url, 'builder')
-    await page.goto(`${server.url}/scan`)
+    const page = await app.openAs('builder', { path: '/scan', viewport: PHONE, hasTouch: true, isMobile: true })
     await page.getByTestId('scan-input').fill('a1-03')
     await page.getByTestId('scan-input').press('Enter')
     await page.waitForURL((u) => u.pathname === '/bins/A1-03')
@@ -48,9 +37,7 @@ describe('scanning a label on a phone (390 × 844)', () => {
   })
 
   it('says "not one of our labels" for an unknown code and stays on the scan page', async () => {
-    const page = await browser.newPage({ viewport: PHONE, hasTouch: true, isMobile: true })
-    await signIn(page, server.url, 'viewer')
-    await page.goto(`${server.url}/scan`)
+    const page = await app.openAs('viewer', { path: '/scan', viewport: PHONE, hasTouch: true, isMobile: true })
     await page.getByTestId('scan-input').fill('5012345678900')
     await page.getByTestId('scan-open').click()
     const msg = page.getByTestId('scan-message')
@@ -65,16 +52,15 @@ describe('scanning a label on a phone (390 × 844)', () => {
   })
 
   it('opens a whole label URL typed by a handheld scanner, shows the boiler caution, and lists the bin as recent', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'viewer')
-    const tube = await (await page.request.get(`${server.url}/api/bins/B1-06`)).json()
-    await page.goto(`${server.url}/scan`)
+    const page = await app.openAs('viewer', { viewport: PHONE })
+    const tube = await (await page.request.get(`${app.url}/api/bins/B1-06`)).json()
+    await page.goto(`${app.url}/scan`)
     await page.getByTestId('scan-input').fill(`http://localhost:3000/bins/${tube.bin.labelCode}`)
     await page.getByTestId('scan-input').press('Enter')
     await page.waitForURL((u) => u.pathname === '/bins/B1-06')
     await page.getByTestId('caution-pressure').waitFor()
     expect(await page.getByTestId('action-take').count()).toBe(0)
-    await page.goto(`${server.url}/scan`)
+    await page.goto(`${app.url}/scan`)
     expect(await page.getByTestId('recent-bin').first().innerText()).toContain('B1-06')
     await page.close()
   })
@@ -82,9 +68,7 @@ describe('scanning a label on a phone (390 × 844)', () => {
 
 describe('the labels screen', () => {
   it('previews a rack of labels at true size from a chosen start position, and prints them at exact millimetres', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/labels`)
+    const page = await app.openAs('storekeeper', { path: '/labels' })
     await page.getByTestId('rack-pick').click()
     await page.getByText('Drawer cabinet A1', { exact: false }).first().click()
     await page.getByTestId('start-5').click()
@@ -101,17 +85,15 @@ describe('the labels screen', () => {
     expect(printed.countPages()).toBe(1)
     const at = positionOf(findSheet('a4-3x8-70x37')!, 5)
     const url = decodeQrIn(printed, 0, { xMm: at.xMm, yMm: at.yMm, wMm: 70, hMm: 37 })
-    const a101 = await (await page.request.get(`${server.url}/api/bins/A1-01`)).json()
-    expect(url).toBe(`${server.url.replace('127.0.0.1', 'localhost')}/bins/${a101.bin.labelCode}`)
+    const a101 = await (await page.request.get(`${app.url}/api/bins/A1-01`)).json()
+    expect(url).toBe(`${app.url.replace('127.0.0.1', 'localhost')}/bins/${a101.bin.labelCode}`)
     await page.close()
   })
 })
 
 describe('a stock-take on a phone', () => {
   it('counts a rack bin by bin, shows the difference before applying, then writes it', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/stocktake`)
+    const page = await app.openAs('storekeeper', { path: '/stocktake', viewport: PHONE })
     await page.getByTestId('take-scope').click()
     await page.getByText('A3 · Drawer cabinet A3', { exact: false }).click()
     await page.getByTestId('take-start').click()
@@ -126,7 +108,7 @@ describe('a stock-take on a phone', () => {
     await screenshot(page, 'stocktake-review-phone')
     await page.getByTestId('take-apply').click()
     await page.getByTestId('take-start').waitFor()
-    const bin = await (await page.request.get(`${server.url}/api/bins/A3-02`)).json()
+    const bin = await (await page.request.get(`${app.url}/api/bins/A3-02`)).json()
     expect(bin.lines[0].quantity).toBe(2)
     await page.close()
   })

@@ -1,25 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { DESKTOP, screenshot } from '../helpers/browser'
 import { NAV_ITEMS } from '../../shared/navigation'
 import { ROLES, roleAtLeast } from '../../shared/types/api'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 describe('the app shell in Chromium', () => {
   it('sends a signed-out visitor to the sign-in page and back to where they were going', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await page.goto(`${server.url}/ledger`)
+    const page = await app.browser.newPage({ viewport: DESKTOP })
+    await page.goto(`${app.url}/ledger`)
     await page.waitForURL((u) => u.pathname === '/login' && u.searchParams.get('next') === '/ledger')
     await page.getByTestId('username').fill('viewer')
     await page.locator('input[type="password"]').fill('brass-viewer-1')
@@ -30,8 +20,7 @@ describe('the app shell in Chromium', () => {
 
   for (const role of ROLES) {
     it(`shows a ${role} the navigation of that role, then signs out`, async () => {
-      const page = await browser.newPage({ viewport: DESKTOP })
-      await signIn(page, server.url, role)
+      const page = await app.openAs(role)
       await page.getByTestId('nav-today').waitFor()
       const expected = NAV_ITEMS.filter((i) => roleAtLeast(role, i.minRole)).map((i) => i.label)
       const shown = await page.locator('.desktop-nav [data-testid^="nav-"]').allInnerTexts()
@@ -40,7 +29,7 @@ describe('the app shell in Chromium', () => {
       await page.getByTestId('user-menu').click()
       await page.getByTestId('sign-out').click()
       await page.waitForURL(/\/login/)
-      await page.goto(`${server.url}/parts`)
+      await page.goto(`${app.url}/parts`)
       await page.waitForURL(/\/login/)
       await page.close()
     })

@@ -1,24 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { startServer, type RunningServer } from '../helpers/server'
-import { DESKTOP, PHONE, launchBrowser, screenshot, signIn } from '../helpers/browser'
+import { describe, expect, it } from 'vitest'
+import { useBrowserSuite } from '../helpers/browser-suite'
+import { PHONE, screenshot } from '../helpers/browser'
 
-let server: RunningServer
-let browser: Browser
-beforeAll(async () => {
-  server = await startServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.stop()
-})
+const app = useBrowserSuite()
 
 describe('Bins and Ledger screens in Chromium', () => {
   it('lets a storekeeper receive stock into a bin from Bins and then see it on the Ledger', async () => {
-    const page = await browser.newPage({ viewport: DESKTOP })
-    await signIn(page, server.url, 'storekeeper')
-    await page.goto(`${server.url}/bins`)
+    const page = await app.openAs('storekeeper', { path: '/bins' })
     await page.getByTestId('bin-A1-11').click()
     await page.waitForURL(/bin=A1-11/)
     await expect.poll(() => page.getByTestId('bin-title').innerText()).toContain('A1-11')
@@ -50,14 +38,12 @@ describe('Bins and Ledger screens in Chromium', () => {
   })
 
   it('shows a viewer the contents and the ledger but no edit controls', async () => {
-    const page = await browser.newPage({ viewport: PHONE })
-    await signIn(page, server.url, 'viewer')
-    await page.goto(`${server.url}/bins?bin=C1-01`)
+    const page = await app.openAs('viewer', { path: '/bins?bin=C1-01', viewport: PHONE })
     await page.getByTestId('bin-contents').locator('tbody tr.ant-table-row').filter({ hasText: 'TL-2211' }).waitFor()
     expect(await page.getByTestId('bin-contents').innerText()).toContain('expired')
     for (const id of ['receive', 'new-bin', 'edit-bin', 'retire-bin']) expect(await page.getByTestId(id).count()).toBe(0)
     await screenshot(page, 'bins-viewer-phone')
-    await page.goto(`${server.url}/ledger`)
+    await page.goto(`${app.url}/ledger`)
     await page.getByTestId('movement-table').locator('tbody tr.ant-table-row').first().waitFor()
     expect(await page.getByTestId('reverse').count()).toBe(0)
     await screenshot(page, 'ledger-viewer-phone')

@@ -1,5 +1,5 @@
 import { existsSync, mkdirSync } from 'node:fs'
-import { chromium, type Browser, type Page } from 'playwright-core'
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core'
 import { DEMO_USERS } from '../../seeds/demo-users'
 import type { Role } from '../../shared/types/api'
 
@@ -33,6 +33,23 @@ export async function signIn(page: Page, baseUrl: string, role: Role) {
   await page.locator('input[type="password"]').fill(user.password)
   await page.getByTestId('sign-in').click()
   await page.waitForURL((u) => !u.pathname.startsWith('/login'))
+}
+
+/**
+ * A page in a context of its own, phone-sized with touch or desk-sized, signed in as `role`;
+ * close it with `page.context().close()`.
+ */
+export async function signedInPage(browser: Browser, baseUrl: string, role: Role, phone: boolean, options: BrowserContextOptions = {}) {
+  const context = await browser.newContext({ viewport: phone ? PHONE : DESKTOP, isMobile: phone, hasTouch: phone, ...options })
+  const page = await context.newPage()
+  await signIn(page, baseUrl, role)
+  return page
+}
+
+/** Opens `path` and waits for `ready`, something that shows once the screen has its data. */
+export async function openScreen(page: Page, baseUrl: string, path: string, ready: string) {
+  await page.goto(`${baseUrl}${path}`)
+  await page.locator(ready).first().waitFor()
 }
 
 export async function screenshot(page: Page, name: string) {
