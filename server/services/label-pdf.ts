@@ -1,8 +1,5 @@
-import PDFDocument from 'pdfkit'
 import QRCode from 'qrcode'
-import { readFileSync } from 'node:fs'
-import { createRequire } from 'node:module'
-import { dirname, join } from 'node:path'
+import { notoSansPdf } from './pdf-doc'
 import { labelPlaces, PAPERS, type SheetLayout } from '../../shared/domain/label-sheets'
 import { LABEL_QR_LEVEL, qrModule } from '../../shared/domain/label-qr'
 import { labelBoxes, labelLines, LABEL_PADDING_MM, LINE_HEIGHT, PT_MM, type Box, type LabelFields } from '../../shared/domain/label-layout'
@@ -12,22 +9,6 @@ import type { LabelItemDto } from '../../shared/types/labels'
 /** PDF user space is in points; the layout is in mm. */
 const pt = (mm: number) => mm / PT_MM
 const INK = '#000000'
-
-/**
- * Noto Sans from @fontsource (shipped with the app): pdfkit embeds the .woff subsets; it cannot
- * read .woff2. Read once per process.
- */
-let fonts: { regular: Buffer; bold: Buffer } | undefined
-function notoSans() {
-  if (!fonts) {
-    const dir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/noto-sans/package.json')), 'files')
-    fonts = {
-      regular: readFileSync(join(dir, 'noto-sans-latin-400-normal.woff')),
-      bold: readFileSync(join(dir, 'noto-sans-latin-700-normal.woff')),
-    }
-  }
-  return fonts
-}
 
 export interface LabelPdfOptions {
   sheet: SheetLayout
@@ -39,19 +20,10 @@ export interface LabelPdfOptions {
 export function renderLabelPdf(items: LabelItemDto[], opts: LabelPdfOptions): Promise<Buffer> {
   const { sheet } = opts
   const paper = PAPERS[sheet.paper]
-  const doc = new PDFDocument({
+  const { doc, done } = notoSansPdf({
     size: [pt(paper.widthMm), pt(paper.heightMm)], margin: 0, autoFirstPage: false,
     info: { Title: `Binwright labels · ${sheet.name}`, Creator: 'Binwright' },
-  })
-  const chunks: Buffer[] = []
-  doc.on('data', (c: Buffer) => chunks.push(c))
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)))
-    doc.on('error', reject)
-  })
-  const { regular, bold } = notoSans()
-  doc.registerFont('Noto', regular)
-  doc.registerFont('NotoBold', bold)
+  }, { regular: 'Noto', bold: 'NotoBold' })
   // Places come page by page, so each page is finished before the next begins (no buffering).
   let page = -1
   labelPlaces(sheet, items.length, opts.startPosition).forEach((place, i) => {

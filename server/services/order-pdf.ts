@@ -1,7 +1,4 @@
-import PDFDocument from 'pdfkit'
-import { readFileSync } from 'node:fs'
-import { createRequire } from 'node:module'
-import { dirname, join } from 'node:path'
+import { notoSansPdf } from './pdf-doc'
 import type { OrderDetailDto } from '../../shared/types/order'
 
 /** A4 in points (ISO 216: 210 × 297 mm at 72 pt per inch). */
@@ -9,19 +6,6 @@ const A4: [number, number] = [595.28, 841.89]
 const MARGIN = 50
 const INK = '#1f2b31'
 const RULE = '#9aa3a8'
-
-/** Noto Sans shipped with the app: pdfkit reads the @fontsource .woff files (not .woff2). */
-let fonts: { regular: Buffer; bold: Buffer } | undefined
-function notoSans() {
-  if (!fonts) {
-    const dir = join(dirname(createRequire(import.meta.url).resolve('@fontsource/noto-sans/package.json')), 'files')
-    fonts = {
-      regular: readFileSync(join(dir, 'noto-sans-latin-400-normal.woff')),
-      bold: readFileSync(join(dir, 'noto-sans-latin-700-normal.woff')),
-    }
-  }
-  return fonts
-}
 
 /** Table columns: x offset from the margin and width, in points. */
 const COLUMNS = [
@@ -45,13 +29,10 @@ export interface OrderPdfContext {
 
 /** The purchase order as a one- or several-page A4 PDF for the supplier. */
 export function renderOrderPdf(order: OrderDetailDto, ctx: OrderPdfContext): Promise<Buffer> {
-  const doc = new PDFDocument({ size: A4, margin: MARGIN, info: { Title: `Purchase order ${order.number}`, Author: ctx.from } })
-  const f = notoSans()
-  doc.registerFont('body', f.regular)
-  doc.registerFont('bold', f.bold)
-  const chunks: Buffer[] = []
-  doc.on('data', (c: Buffer) => chunks.push(c))
-  const done = new Promise<Buffer>((resolve) => doc.on('end', () => resolve(Buffer.concat(chunks))))
+  const { doc, done } = notoSansPdf(
+    { size: A4, margin: MARGIN, info: { Title: `Purchase order ${order.number}`, Author: ctx.from } },
+    { regular: 'body', bold: 'bold' },
+  )
 
   doc.fillColor(INK).font('bold').fontSize(18).text(`Purchase order ${order.number}`)
   doc.font('body').fontSize(10).moveDown(0.3)
