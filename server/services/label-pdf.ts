@@ -34,7 +34,7 @@ export function renderLabelPdf(items: LabelItemDto[], opts: LabelPdfOptions): Pr
   return done
 }
 
-type Doc = InstanceType<typeof PDFDocument>
+type Doc = PDFKit.PDFDocument
 
 function drawLabel(doc: Doc, item: LabelItemDto, xMm: number, yMm: number, opts: LabelPdfOptions) {
   const { labelWidthMm: w, labelHeightMm: h } = opts.sheet
