@@ -26,24 +26,43 @@ export async function partByLabel(labelCode: string): Promise<PartDetailDto> {
   return toPartDetail(part)
 }
 
+/**
+ * Runs a catalogue write, then tells the search again which parts changed once it has
+ * committed or rolled back. The services mark them inside the transaction too, but a search
+ * that ran meanwhile may have indexed or cached what it saw before the outcome (uncommitted
+ * rows on SQLite's one connection, the old rows on PostgreSQL's others).
+ */
+async function partWrite<T>(ids: number[], work: () => Promise<T>, newId?: (result: T) => number): Promise<T> {
+  try {
+    const result = await work()
+    partsChanged(newId ? [...ids, newId(result)] : ids)
+    return result
+  } catch (err) {
+    partsChanged(ids)
+    throw err
+  }
+}
+
 export const createPartRecord = (input: PartInput) =>
-  inTransaction(async (tx) => toPartDetail(await createPart(tx, input), tx))
+  partWrite([], () => inTransaction(async (tx) => toPartDetail(await createPart(tx, input), tx)), (dto) => dto.id)
 
 export const updatePartRecord = (id: number, input: PartInput) =>
-  inTransaction(async (tx) => {
+  partWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     const kindLocked = await tx.existsBy(Movement, { partId: id }) || await tx.existsBy(StockLot, { partId: id })
     return toPartDetail(await updatePart(tx, part, input, { kindLocked }), tx)
-  })
+  }))
 
 /** Archived parts leave lists and search but keep their ledger; restoring brings them back. */
 export const setArchived = (id: number, archived: boolean) =>
-  inTransaction(async (tx) => {
+  partWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     part.archived = archived
-    await tx.save(Part, part) // the word index holds archived parts too: search filters them in SQL
+    await tx.save(Part, part)
+    // The word index holds archived parts too (search filters them in SQL), but cached answers must go.
+    partsChanged([id])
     return toPartDetail(part, tx)
-  })
+  }))
 
 /** Records that refer to a part; any of them means it can only be archived, never deleted. */
 const REFERENCES = [
@@ -53,7 +72,7 @@ const REFERENCES = [
 
 /** Deletes a part entered by mistake; one with a ledger, stock or other records is refused (archive it). */
 export const deletePart = (id: number) =>
-  inTransaction(async (tx) => {
+  partWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     const used: string[] = []
     for (const [entity, what] of REFERENCES) if (await tx.existsBy(entity, { partId: id })) used.push(what)
@@ -63,7 +82,7 @@ export const deletePart = (id: number) =>
     }
     await tx.delete(Part, { id })
     partsChanged([id])
-  })
+  }))
 
 export const suggestCodeInput = z.object({ name: z.string().trim().max(200).default(''), attributes: partAttributes, exceptId: z.number().int().positive().optional() })
 

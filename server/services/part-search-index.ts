@@ -47,9 +47,14 @@ let current: SearchIndex | undefined
 let building: Promise<SearchIndex> | undefined
 const dirty = new Set<number>()
 let rebuildAll = false
+/** Goes up on every catalogue change this process sees, and on every rebuild: search answers cached under an older one are stale. */
+let version = 0
+
+export const catalogueVersion = () => version
 
 /** Marks parts as changed (or, without ids, the whole catalogue); the next search catches up. */
 export function partsChanged(ids?: number[]) {
+  version++
   if (!ids) rebuildAll = true
   else for (const id of ids) dirty.add(id)
   if (dirty.size > FULL_REBUILD_AFTER) rebuildAll = true
@@ -129,7 +134,10 @@ async function catchUp(ix: SearchIndex) {
 }
 
 function startBuild(ds: DataSource): Promise<SearchIndex> {
-  building ??= build(ds).then((ix) => (current = ix)).finally(() => { building = undefined })
+  building ??= build(ds).then((ix) => {
+    version++ // a rebuild may bring in another process's changes
+    return (current = ix)
+  }).finally(() => { building = undefined })
   return building
 }
 

@@ -4,6 +4,7 @@ import { Part } from '../entities'
 import { db } from '../db'
 import { searchIndex, textCandidates, type IndexedPart } from './part-search-index'
 import { toPartSummaries } from './part-summaries'
+import { cachedSearch } from './part-search-cache'
 import { parsePartQuery, type PartQuery } from '../../shared/domain/part-query'
 import { partListQuery, type PartListQuery } from '../../shared/schemas/part-list'
 import type { PartSearchPage } from '../../shared/types/part'
@@ -77,29 +78,45 @@ async function exactMatch(raw: string, includeArchived: boolean): Promise<Part |
   return part && (includeArchived || !part.archived) ? part : null
 }
 
+/** What a search decides before reading rows: the page's part ids in order, and the total. */
+interface SearchAnswer {
+  ids: number[]
+  total: number
+  understood: PartQuery
+}
+
+/** The cache key: the query as the parser and the exact-code look-up see it (case and spacing do not matter to either). */
+const cacheKey = (p: ReturnType<typeof partListQuery.parse>) =>
+  JSON.stringify([p.q.toLowerCase().replace(/\s+/g, ' '), p.kind ?? '', p.includeArchived, p.page, p.pageSize])
+
 /**
  * GET /api/parts: filters on indexed columns first, then ranks the candidates by the leftover
  * words with fuse.js, then paginates. With filters the words only rank (so "hex nut m4" still
  * lists every M4 nut, hex-named first); without filters the words choose the candidates.
+ * Which parts make the page is cached (part-search-cache.ts); their rows and stock are read afresh.
  */
 export async function searchParts(raw: PartListQuery): Promise<PartSearchPage> {
   const p = partListQuery.parse(raw)
+  const { ids, total, understood } = await cachedSearch(cacheKey(p), () => answer(p))
+  const items = await toPartSummaries(await partsInOrder(ids))
+  return { items, total, page: p.page, pageSize: p.pageSize, understood }
+}
+
+async function answer(p: ReturnType<typeof partListQuery.parse>): Promise<SearchAnswer> {
   const understood = parsePartQuery(p.q)
-  const page = (items: Part[], total: number) =>
-    toPartSummaries(items).then((summaries) => ({ items: summaries, total, page: p.page, pageSize: p.pageSize, understood }))
   const exact = await exactMatch(p.q, p.includeArchived)
-  if (exact && (!p.kind || exact.kind === p.kind)) return page([exact], 1)
+  if (exact && (!p.kind || exact.kind === p.kind)) return { ids: [exact.id], total: 1, understood }
 
   const qb = db().getRepository(Part).createQueryBuilder('p')
   applyFilters(qb, understood, p.kind, p.includeArchived)
   const skip = (p.page - 1) * p.pageSize
   if (!understood.text) {
-    // Ids of the page first (sorting ids and codes, not whole rows), then those rows.
+    // Ids of the page first (sorting ids and codes, not whole rows); the caller reads those rows.
     const [pageIds, total] = await Promise.all([
       qb.clone().select('p.id', 'id').orderBy('p.code', 'ASC').offset(skip).limit(p.pageSize).getRawMany<{ id: number }>(),
       qb.getCount(),
     ])
-    return page(await partsInOrder(pageIds.map((r) => r.id)), total)
+    return { ids: pageIds.map((r) => Number(r.id)), total, understood }
   }
   const ix = await searchIndex()
   const candidates = textCandidates(ix, understood.text)
@@ -113,7 +130,7 @@ export async function searchParts(raw: PartListQuery): Promise<PartSearchPage> {
     const live = p.includeArchived ? candidates : await withoutArchived(candidates)
     ordered = rank(live, ix.parts, understood.text)
   }
-  return page(await partsInOrder(ordered.slice(skip, skip + p.pageSize)), ordered.length)
+  return { ids: ordered.slice(skip, skip + p.pageSize), total: ordered.length, understood }
 }
 
 /** The parts with these ids, in the order given. */

@@ -1,0 +1,23 @@
+import { fork } from 'node:child_process'
+import type { Options, Result } from 'autocannon'
+
+export interface LoadOptions extends Options {
+  /** GET these paths one after another across all connections (instead of `requests`, which each connection repeats). */
+  paths?: string[]
+}
+
+/**
+ * autocannon in a child process. In the benchmark's own process it would share one event loop
+ * with the server it measures: every request would pay for both sides on one core, which hides
+ * how much the server itself costs (a bare route and a heavy one come out closer than they are).
+ * On a 2-core machine the server and the load generator each get a core this way.
+ */
+export function cannon(options: LoadOptions): Promise<Result & { wrapped: boolean }> {
+  const child = fork(new URL('./cannon-worker.mjs', import.meta.url), { stdio: 'inherit' })
+  return new Promise((resolve, reject) => {
+    child.once('message', (r) => resolve(r as Result & { wrapped: boolean }))
+    child.once('error', reject)
+    child.once('exit', (code) => { if (code) reject(new Error(`load generator exited ${code}`)) })
+    child.send(options)
+  })
+}
