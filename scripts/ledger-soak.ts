@@ -51,7 +51,7 @@ export async function runSoak(ds: DataSource, operations: number, members = 6, s
   const builder = await ds.getRepository(User).findOneByOrFail({ role: 'builder' })
   const builds = await ds.getRepository(Build).find()
   const lines = await ds.getRepository(BuildLine).find()
-  const supplierPart = (await ds.query('SELECT supplierId, partId FROM supplier_parts ORDER BY id LIMIT 6')) as { supplierId: number; partId: number }[]
+  const supplierPart = (await ds.query('SELECT "supplierId" AS "supplierId", "partId" AS "partId" FROM supplier_parts ORDER BY id LIMIT 6')) as { supplierId: number; partId: number }[]
   const order = await createOrder({ supplierId: supplierPart[0].supplierId, lines: supplierPart.filter((s) => s.supplierId === supplierPart[0].supplierId).map((s) => ({ partId: s.partId, packs: 5 })) }, keeper.id)
   await ds.getRepository(PurchaseOrder).update(order.id, { status: 'sent' })
   const orderLines = await ds.getRepository(PurchaseLine).findBy({ orderId: order.id })

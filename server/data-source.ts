@@ -3,20 +3,36 @@ import { mkdirSync } from 'node:fs'
 import { dirname } from 'node:path'
 import { DataSource } from 'typeorm'
 import { entities } from './entities'
-import { migrations } from './migrations'
+import { postgresMigrations, sqliteMigrations } from './migrations'
 
 /** Milliseconds a writer waits for SQLite's lock before giving up (another process writing). */
 const BUSY_TIMEOUT_MS = 5000
 
+/** True for a PostgreSQL address (DATABASE_URL); anything else is a SQLite file path. */
+export const isPostgresUrl = (location: string) => /^postgres(ql)?:\/\//.test(location)
+
+/** The database location fit for a log line: a PostgreSQL address loses its password. */
+export function describeDatabase(location: string): string {
+  if (!isPostgresUrl(location)) return location
+  const url = new URL(location)
+  if (url.password) url.password = '***'
+  return url.toString()
+}
+
 /**
  * The one DataSource definition: used by the app, the seeds, the tests and the TypeORM CLI.
- * WAL lets readers go on while a write commits; foreign keys are off by default in SQLite.
+ * `location` is a SQLite file path or a postgres:// address; both run the same entities.
  */
-export function createDataSource(databasePath: string): DataSource {
-  if (databasePath !== ':memory:') mkdirSync(dirname(databasePath), { recursive: true })
+export function createDataSource(location: string): DataSource {
+  return isPostgresUrl(location) ? postgresDataSource(location) : sqliteDataSource(location)
+}
+
+/** WAL lets readers go on while a write commits; foreign keys are off by default in SQLite. */
+function sqliteDataSource(path: string): DataSource {
+  if (path !== ':memory:') mkdirSync(dirname(path), { recursive: true })
   return new DataSource({
     type: 'better-sqlite3',
-    database: databasePath,
+    database: path,
     enableWAL: true,
     prepareDatabase: (db: { pragma: (s: string) => unknown }) => {
       db.pragma('foreign_keys = ON')
@@ -25,7 +41,21 @@ export function createDataSource(databasePath: string): DataSource {
       db.pragma('synchronous = NORMAL')
     },
     entities,
-    migrations,
+    migrations: sqliteMigrations,
+    migrationsRun: false,
+    synchronize: false,
+    logging: false,
+  })
+}
+
+/** For a society sharing one server among several workshops; a small pool is plenty. */
+function postgresDataSource(url: string): DataSource {
+  return new DataSource({
+    type: 'postgres',
+    url,
+    extra: { max: 10 },
+    entities,
+    migrations: postgresMigrations,
     migrationsRun: false,
     synchronize: false,
     logging: false,
@@ -33,4 +63,4 @@ export function createDataSource(databasePath: string): DataSource {
 }
 
 /** Target of the TypeORM CLI's `-d` (migration:generate / migration:run). */
-export default createDataSource(process.env.DATABASE_PATH ?? 'data/binwright.sqlite')
+export default createDataSource(process.env.DATABASE_URL ?? process.env.DATABASE_PATH ?? 'data/binwright.sqlite')

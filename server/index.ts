@@ -1,6 +1,7 @@
 /** Starts Binwright: database and migrations, first admin or demo data, then the web server. */
 import { loadConfig } from './config'
 import { openDatabase } from './database'
+import { describeDatabase } from './data-source'
 import { createApp } from './app'
 import { ensureFirstAdmin } from './services/users'
 import { scheduleDailyBackups } from './services/backup'
@@ -10,7 +11,7 @@ import { startLocalMailSinkIfNeeded, startSchedules } from './services/notificat
 
 const config = loadConfig()
 const mailSink = await startLocalMailSinkIfNeeded(config)
-const ds = await openDatabase(config.DATABASE_PATH)
+const ds = await openDatabase(config.database)
 
 if (config.DEMO_DATA && (await isEmpty(ds))) {
   await seedDemo(ds)
@@ -31,7 +32,7 @@ const server = app.listen(config.PORT, config.HOST, () => {
   const port = typeof address === 'object' && address ? address.port : config.PORT
   // Links in e-mail must carry the real port when PORT=0 picked a free one.
   if (!config.PUBLIC_URL) config.publicUrl = `http://localhost:${port}`
-  console.log(`Binwright is running at http://localhost:${port} (database ${config.DATABASE_PATH})`)
+  console.log(`Binwright is running at http://localhost:${port} (database ${describeDatabase(config.database)})`)
   console.log(mailSink
     ? `No SMTP_HOST set: e-mail goes to a local test mail server at ${mailSink.host}:${mailSink.port} and nowhere else; admins read it at /admin/outbox.`
     : `E-mail goes out through ${config.SMTP_HOST}:${config.SMTP_PORT}.`)

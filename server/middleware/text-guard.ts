@@ -31,9 +31,17 @@ function hiddenIn(value: unknown, path: string, depth = 0): string | null {
   return null
 }
 
-/** Refuses a JSON body or query carrying hidden control or direction characters, before any route sees it. */
+/** The path as routes will see its parameters; a malformed escape is left to Express's own 400. */
+function decodedPath(path: string): string {
+  try { return decodeURIComponent(path) } catch { return '' }
+}
+
+/**
+ * Refuses a path, query or JSON body carrying hidden control or direction characters, before
+ * any route sees it (a NUL in a code would also be refused by PostgreSQL with a 500).
+ */
 export const refuseHiddenText: RequestHandler = (req, _res, next) => {
-  const where = hiddenIn(req.query, 'query') ?? hiddenIn(req.body, 'body')
+  const where = hiddenIn(decodedPath(req.path), 'path') ?? hiddenIn(req.query, 'query') ?? hiddenIn(req.body, 'body')
   if (!where) return next()
   next(new AppError(400, 'HIDDEN_CHARACTERS',
     'The text contains invisible control or direction characters; retype it without them.', { path: where }))

@@ -2,11 +2,18 @@ import { copyFileSync, existsSync, mkdirSync, readdirSync, renameSync, rmSync } 
 import { join } from 'node:path'
 import Database from 'better-sqlite3'
 import { db } from '../db'
+import { conflict } from '../errors'
+
+/** Backups here are SQLite's; a PostgreSQL server is backed up with PostgreSQL's own tools. */
+export const backupsHere = () => db().options.type === 'better-sqlite3'
 
 /** better-sqlite3's own handle under TypeORM's driver (its online backup API lives there). */
 function sqliteHandle(): Database.Database {
   const driver = db().driver as unknown as { databaseConnection?: Database.Database }
-  if (!driver.databaseConnection) throw new Error('Backups need the SQLite database')
+  if (!backupsHere() || !driver.databaseConnection) {
+    throw conflict('BACKUP_ELSEWHERE',
+      'This server keeps its data in PostgreSQL: back it up with pg_dump on the database server (see the README). Nothing was changed.')
+  }
   return driver.databaseConnection
 }
 
@@ -70,6 +77,10 @@ export function restoreBackup(file: string, target: string): { keptAs: string | 
 
 /** Daily scheduled backups; the timer does not keep the process alive. */
 export function scheduleDailyBackups(dir: string, keep: number, log: (msg: string) => void) {
+  if (!backupsHere()) {
+    log('Data in PostgreSQL: no scheduled backups from Binwright; schedule pg_dump on the database server.')
+    return () => {}
+  }
   const DAY_MS = 24 * 60 * 60 * 1000
   const timer = setInterval(() => {
     backupTo(dir)

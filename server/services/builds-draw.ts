@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm'
 import { inTransaction, touchPart } from '../db'
-import { BuildLine, Part, Reservation, type Build, type Movement } from '../entities'
+import { BuildLine, Movement, Part, Reservation, StockLot, type Build } from '../entities'
 import { badRequest, conflict } from '../errors'
 import { stockTotalsOf } from './stock-totals'
 import { drawFromLots } from './stock-draw'
@@ -136,8 +136,7 @@ export const returnFromBuild = (buildId: number, raw: ReturnInput, actor: Actor)
 /** Batches return into the batch they were last drawn from for this build. */
 async function lastBatchDrawn(tx: EntityManager, buildId: number, part: Part) {
   if (part.kind !== 'compound') return undefined
-  const row = await tx.query(
-    `SELECT l.batchCode AS batchCode, l.expiresOn AS expiresOn FROM movements m JOIN stock_lots l ON l.id = m.fromLotId
-     WHERE m.buildId = ? AND m.partId = ? AND m.kind = 'draw' ORDER BY m.id DESC LIMIT 1`, [buildId, part.id]) as { batchCode: string; expiresOn: string }[]
-  return row[0] ? { batchCode: row[0].batchCode, expiresOn: row[0].expiresOn } : undefined
+  const last = await tx.findOne(Movement, { where: { buildId, partId: part.id, kind: 'draw' }, order: { id: 'DESC' } })
+  const lot = last?.fromLotId ? await tx.findOneBy(StockLot, { id: last.fromLotId }) : null
+  return lot ? { batchCode: lot.batchCode ?? undefined, expiresOn: lot.expiresOn ?? undefined } : undefined
 }

@@ -2,7 +2,7 @@ import { In, type EntityManager } from 'typeorm'
 import { db, inTransaction, touchPart } from '../db'
 import { BuildLine, Part, Reservation, type Build } from '../entities'
 import { conflict } from '../errors'
-import { stockTotalsOf } from './stock-totals'
+import { lockParts, stockTotalsOf } from './stock-totals'
 import { show } from './stock-guards'
 import { assertOpen, cuttingAllowance, editableBuild, isBar, lineOf, shapeOf, type Actor } from './builds-access'
 import { toDetail } from './builds-view'
@@ -92,7 +92,10 @@ export async function reserveIn(tx: EntityManager, build: Build, raw: ReserveInp
   const lines = input.lineId
     ? [await lineOf(tx, build, input.lineId)]
     : await tx.find(BuildLine, { where: { buildId: build.id }, order: { position: 'ASC', id: 'ASC' } })
-  const parts = new Map((await tx.findBy(Part, { id: In(lines.map((l) => l.partId)) })).map((p) => [p.id, p]))
+  const partIds = lines.map((l) => l.partId)
+  // All of the build's parts at once, in id order, before any line takes its own lock.
+  await lockParts(tx, partIds)
+  const parts = new Map((await tx.findBy(Part, { id: In(partIds) })).map((p) => [p.id, p]))
   const c = await cuttingAllowance()
   const grants: Grant[] = []
   for (const line of lines) {

@@ -1,4 +1,4 @@
-import { In, Like, type EntityManager, type FindOptionsWhere } from 'typeorm'
+import { ILike, In, type EntityManager, type FindOptionsWhere } from 'typeorm'
 import { db, inTransaction, touchPart } from '../db'
 import { Build, BuildLine, Part, Reservation, User } from '../entities'
 import { badRequest, conflict, forbidden } from '../errors'
@@ -19,7 +19,7 @@ export async function listBuilds(q: z.infer<typeof buildListQuery>, actor: Actor
   const where: FindOptionsWhere<Build> = {
     ...(q.status ? { status: q.status } : {}),
     ...(q.mine ? { ownerId: actor.id } : {}),
-    ...(q.q ? { name: Like(`%${q.q.replace(/[%_]/g, '')}%`) } : {}),
+    ...(q.q ? { name: ILike(`%${q.q.replace(/[%_]/g, '')}%`) } : {}),
   }
   const m = db().manager
   const [builds, total] = await m.findAndCount(Build, {

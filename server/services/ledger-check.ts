@@ -9,6 +9,8 @@ export interface LedgerDifference {
   fromLedger: number
 }
 
+interface LedgerRow { id: number; partId: number; binId: number; quantity: number; fromLedger: number }
+
 export interface LedgerReport {
   lots: number
   movements: number
@@ -16,14 +18,19 @@ export interface LedgerReport {
   differences: LedgerDifference[]
 }
 
-/** Recomputes every lot's quantity from the ledger and lists the lots that disagree. */
+/**
+ * Recomputes every lot's quantity from the ledger and lists the lots that disagree.
+ * Plain SQL that runs on SQLite and PostgreSQL alike (quoted camelCase names, numbers via Number).
+ */
 export async function checkLedger(ds: DataSource): Promise<LedgerReport> {
-  const rows: { id: number; partId: number; binId: number; quantity: number; fromLedger: number }[] =
-    await ds.query(`
-      SELECT l.id, l.partId, l.binId, l.quantity,
-        COALESCE((SELECT SUM(m.quantity) FROM movements m WHERE m.toLotId = l.id), 0)
-        - COALESCE((SELECT SUM(m.quantity) FROM movements m WHERE m.fromLotId = l.id), 0) AS fromLedger
+  const raw: Record<keyof LedgerRow, unknown>[] = await ds.query(`
+      SELECT l.id AS "id", l."partId" AS "partId", l."binId" AS "binId", l.quantity AS "quantity",
+        COALESCE((SELECT SUM(m.quantity) FROM movements m WHERE m."toLotId" = l.id), 0)
+        - COALESCE((SELECT SUM(m.quantity) FROM movements m WHERE m."fromLotId" = l.id), 0) AS "fromLedger"
       FROM stock_lots l`)
+  const rows = raw.map((r) => ({
+    id: Number(r.id), partId: Number(r.partId), binId: Number(r.binId), quantity: Number(r.quantity), fromLedger: Number(r.fromLedger),
+  }))
   const [{ n }] = await ds.query('SELECT COUNT(*) AS n FROM movements')
   const differences = rows
     .filter((r) => Math.abs(r.quantity - r.fromLedger) > QUANTITY_EPSILON * 1000)

@@ -34,7 +34,7 @@ export async function postMovement(tx: EntityManager, input: MovementInput): Pro
   if (input.fromLotId) {
     const result = await tx.createQueryBuilder().update(StockLot)
       .set({ quantity: () => 'quantity - :q' })
-      .where('id = :id AND quantity >= :q - :eps', { id: input.fromLotId, eps: QUANTITY_EPSILON })
+      .where('id = :id AND quantity >= :least', { id: input.fromLotId, least: input.quantity - QUANTITY_EPSILON })
       .setParameter('q', input.quantity)
       .execute()
     const lot = await lots.findOneByOrFail({ id: input.fromLotId })

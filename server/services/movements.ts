@@ -90,7 +90,7 @@ const CSV_COLUMNS = ['id', 'at', 'kind', 'part_code', 'part_name', 'quantity', '
 export async function ledgerPeople(): Promise<{ id: number; displayName: string }[]> {
   return db().getRepository(User).createQueryBuilder('u')
     .select(['u.id', 'u.displayName'])
-    .where('u.id IN (SELECT DISTINCT m.userId FROM movements m)')
+    .where('u.id IN (SELECT DISTINCT m."userId" FROM movements m)')
     .orderBy('u.displayName').getMany()
     .then((users) => users.map((u) => ({ id: u.id, displayName: u.displayName })))
 }

@@ -17,8 +17,10 @@ const REASON = 'Stock levels imported from CSV'
 export async function exportStockLevelsCsv(): Promise<string> {
   const lots = await db().getRepository(StockLot).createQueryBuilder('l')
     .innerJoin(Part, 'p', 'p.id = l.partId').innerJoin(Bin, 'b', 'b.id = l.binId')
-    .select(['p.code AS partCode', 'p.name AS partName', 'p.kind AS kind', 'p.unit AS unit', 'b.code AS binCode',
-      'l.id AS lotId', 'l.quantity AS quantity', 'l.batchCode AS batchCode', 'l.expiresOn AS expiresOn'])
+    // select(column, alias) quotes each alias, so camelCase names survive on PostgreSQL too.
+    .select('p.code', 'partCode').addSelect('p.name', 'partName').addSelect('p.kind', 'kind').addSelect('p.unit', 'unit')
+    .addSelect('b.code', 'binCode').addSelect('l.id', 'lotId').addSelect('l.quantity', 'quantity')
+    .addSelect('l.batchCode', 'batchCode').addSelect('l.expiresOn', 'expiresOn')
     .where('l.quantity > 0').orderBy('p.code').addOrderBy('b.code').addOrderBy('l.id').getRawMany()
   return Papa.unparse({ fields: [...STOCK_CSV_COLUMNS], data: lots.map((l) => STOCK_CSV_COLUMNS.map((c) => l[c] ?? '')) },
     { escapeFormulae: true, newline: '\r\n' })

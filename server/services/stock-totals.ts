@@ -1,6 +1,6 @@
 import { In, type EntityManager } from 'typeorm'
 import { db } from '../db'
-import { Reservation, StockLot } from '../entities'
+import { Part, Reservation, StockLot } from '../entities'
 
 export interface StockTotals {
   onHand: number
@@ -12,14 +12,31 @@ export interface StockTotals {
 const ZERO: StockTotals = { onHand: 0, reserved: 0, available: 0 }
 
 /**
+ * On PostgreSQL, locks the parts' rows (SELECT … FOR UPDATE, in id order so two transactions
+ * cannot deadlock) until the transaction ends: another server process or pool connection
+ * deciding on the same parts' free stock waits for this one to commit. SQLite needs no lock:
+ * this process runs its writers one at a time (inTransaction), and SQLite lets one process
+ * write at a time, refusing a writer whose earlier reads went stale.
+ */
+export async function lockParts(tx: EntityManager, partIds: number[]) {
+  const inWrite = tx.queryRunner?.isTransactionActive
+  if (tx.connection.options.type !== 'postgres' || !inWrite || partIds.length === 0) return
+  const ids = [...new Set(partIds)].sort((a, b) => a - b)
+  await tx.createQueryBuilder(Part, 'p').select('p.id').where({ id: In(ids) })
+    .orderBy('p.id').setLock('pessimistic_write').getMany()
+}
+
+/**
  * On hand, reserved and available for each part, in two grouped queries (no N+1).
- * Pass the transaction's manager when the answer must be consistent with a write.
+ * Pass the transaction's manager when the answer must be consistent with a write: the parts
+ * are then locked until it commits (see lockParts).
  */
 export async function stockTotals(partIds: number[], tx?: EntityManager): Promise<Map<number, StockTotals>> {
   const m = tx ?? db().manager
   const result = new Map<number, StockTotals>()
   if (partIds.length === 0) return result
   const ids = [...new Set(partIds)]
+  if (tx) await lockParts(tx, ids) // a plain read (a manager outside any transaction) locks nothing
   const onHand: { partId: number; total: number }[] = await m.createQueryBuilder(StockLot, 'l')
     .select('l.partId', 'partId').addSelect('SUM(l.quantity)', 'total')
     .where({ partId: In(ids) }).groupBy('l.partId').getRawMany()

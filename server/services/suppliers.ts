@@ -1,4 +1,4 @@
-import { In, Like, type EntityManager } from 'typeorm'
+import { ILike, In, type EntityManager } from 'typeorm'
 import { db, inTransaction } from '../db'
 import { Part, PurchaseOrder, Supplier, SupplierPart } from '../entities'
 import { conflict, notFound } from '../errors'
@@ -25,7 +25,7 @@ const toSupplierDto = (s: Supplier, offerCount: number): SupplierDto => ({
 
 export async function listSuppliers(q: string | undefined, page: number, pageSize: number): Promise<Page<SupplierDto>> {
   const m = db().manager
-  const where = q ? { name: Like(`%${q}%`) } : {}
+  const where = q ? { name: ILike(`%${q}%`) } : {}
   const [rows, total] = await m.findAndCount(Supplier, { where, order: { name: 'ASC' }, skip: (page - 1) * pageSize, take: pageSize })
   const counts = await offerCounts(m, rows.map((s) => s.id))
   return { items: rows.map((s) => toSupplierDto(s, counts.get(s.id) ?? 0)), total, page, pageSize }

@@ -21,11 +21,11 @@ beforeAll(async () => {
   ids = {
     part: await one('SELECT id FROM parts ORDER BY id'),
     countedPart: await one("SELECT id FROM parts WHERE kind = 'fastener' ORDER BY id"),
-    bin: await one('SELECT id FROM bins WHERE retired = 0 ORDER BY id'),
+    bin: await one('SELECT id FROM bins WHERE retired = false ORDER BY id'),
     rack: await one('SELECT id FROM racks ORDER BY id'),
     workshop: await one('SELECT id FROM workshops ORDER BY id'),
-    build: await one("SELECT b.id FROM builds b JOIN users u ON u.id = b.ownerId WHERE u.role = 'builder'"),
-    line: await one("SELECT l.id FROM build_lines l JOIN builds b ON b.id = l.buildId JOIN users u ON u.id = b.ownerId WHERE u.role = 'builder'"),
+    build: await one(`SELECT b.id FROM builds b JOIN users u ON u.id = b."ownerId" WHERE u.role = 'builder' ORDER BY b.id`),
+    line: await one(`SELECT l.id FROM build_lines l JOIN builds b ON b.id = l."buildId" JOIN users u ON u.id = b."ownerId" WHERE u.role = 'builder' ORDER BY l.id`),
     supplier: await one('SELECT id FROM suppliers ORDER BY id'),
   }
   before = await databaseDigest(t.dataSource)

@@ -23,5 +23,5 @@ it('keeps the ledger reconciled and stock never negative under six members worki
   for (const kind of ['receive', 'take', 'reserve', 'release', 'move', 'count', 'order-receipt']) expect(r.byKind[kind]).toBeGreaterThan(50)
   expect(r.applied).toBeGreaterThan(OPERATIONS / 3)
   const negative = await t.dataSource.query('SELECT COUNT(*) AS n FROM stock_lots WHERE quantity < 0') as { n: number }[]
-  expect(negative[0].n).toBe(0)
+  expect(Number(negative[0].n)).toBe(0)
 }, 60_000)

@@ -37,7 +37,7 @@ describe('GET /api/bins/:code', () => {
   it('finds a bin by its human code in any case, or by its label code, with contents and part-level reservations', async () => {
     const nut = await partByCode(t.dataSource, '7BA-NUT')
     const build = await t.dataSource.getRepository(Build).findOneByOrFail({ status: 'active' })
-    const held = Number((await t.dataSource.query('SELECT COALESCE(SUM(quantity),0) AS n FROM reservations WHERE partId = ?', [nut.id]))[0].n)
+    const held = Number((await t.dataSource.query(`SELECT COALESCE(SUM(quantity),0) AS n FROM reservations WHERE "partId" = ${Number(nut.id)}`))[0].n)
     await t.dataSource.getRepository(Reservation).save({ partId: nut.id, buildId: build.id, buildLineId: 900_101, quantity: 24, userId: 1 })
     const res = await viewer.get('/api/bins/a1-03')
     expect(res.status).toBe(200)

@@ -92,7 +92,7 @@ describe('role × route matrix (server/route-access.ts)', () => {
   it('refuses a builder changing a build they do not own (ownership beyond the role)', async () => {
     const builder = clients.get('builder')!
     const rows = await t.dataSource.query(
-      "SELECT b.id FROM builds b JOIN users u ON u.id = b.ownerId WHERE u.role <> 'builder' ORDER BY b.id") as { id: number }[]
+      `SELECT b.id FROM builds b JOIN users u ON u.id = b."ownerId" WHERE u.role <> 'builder' ORDER BY b.id`) as { id: number }[]
     expect(rows.length).toBeGreaterThan(0)
     const id = rows[0].id
     for (const [method, path] of [['PATCH', ''], ['POST', '/status'], ['POST', '/lines'], ['POST', '/reserve'], ['POST', '/release'], ['POST', '/draw']] as const) {

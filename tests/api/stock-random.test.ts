@@ -38,7 +38,7 @@ describe('a seeded random series of 1,000 stock changes through the services', (
     const bins = (await t.dataSource.getRepository(Bin).find()).filter((b) => !b.retired)
     const userId = (await t.dataSource.getRepository(User).findOneByOrFail({ username: 'keeper' })).id
     const totals = async () => {
-      const rows: { partId: number; n: number }[] = await t.dataSource.query('SELECT partId, SUM(quantity) AS n FROM stock_lots GROUP BY partId')
+      const rows: { partId: number; n: number }[] = await t.dataSource.query('SELECT "partId" AS "partId", SUM(quantity) AS n FROM stock_lots GROUP BY "partId"')
       return new Map(rows.map((r) => [r.partId, r.n]))
     }
     const tally = await totals()

@@ -148,7 +148,7 @@ describe('reservations and plain takes', () => {
     const bin = await binByCode(t.dataSource, 'A1-05')
     const build = await t.dataSource.getRepository(Build).findOneByOrFail({ status: 'active' })
     const onHand = await qty(stud.id, 'A1-05')
-    const held = Number((await t.dataSource.query('SELECT COALESCE(SUM(quantity),0) AS n FROM reservations WHERE partId = ?', [stud.id]))[0].n)
+    const held = Number((await t.dataSource.query(`SELECT COALESCE(SUM(quantity),0) AS n FROM reservations WHERE "partId" = ${Number(stud.id)}`))[0].n)
     // Hold all but 5 for the build (a fake build line id keeps clear of the build feature's own).
     await t.dataSource.getRepository(Reservation).save({ partId: stud.id, buildId: build.id, buildLineId: 900_001, quantity: onHand - held - 5, userId: 1 })
     const before = await snapshot(t.dataSource)

@@ -6,7 +6,7 @@ import Database from 'better-sqlite3'
 import { startServer, type RunningServer } from '../helpers/server'
 import { openDatabase } from '../../server/database'
 import { checkLedger } from '../../server/services/ledger-check'
-import { migrations } from '../../server/migrations'
+import { sqliteMigrations as migrations } from '../../server/migrations'
 import { DEMO_USERS } from '../../seeds/demo-users'
 
 /** Writes acknowledged before the kill; in-flight requests die with the process. */

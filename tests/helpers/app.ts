@@ -10,6 +10,7 @@ import { seedDemo } from '../../seeds/demo'
 import { DEMO_USERS } from '../../seeds/demo-users'
 import { User } from '../../server/entities'
 import { hashPassword } from '../../server/services/users'
+import { freshDatabase, onPostgres } from './test-database'
 import type { Role } from '../../shared/types/api'
 
 export interface TestAppOptions {
@@ -18,17 +19,22 @@ export interface TestAppOptions {
   config?: Partial<Config>
 }
 
-/** createApp on a temporary SQLite file with migrations run; one per test file. */
+/**
+ * createApp on a fresh database with migrations run, one per test file: a temporary SQLite
+ * file, or a new PostgreSQL database when the tests run against PostgreSQL (TEST_PG_URL).
+ */
 export async function createTestApp(options: TestAppOptions = {}) {
   const dir = mkdtempSync(join(tmpdir(), 'binwright-test-'))
+  const database = await freshDatabase(dir)
   const config = loadConfig({}, {
     DATABASE_PATH: join(dir, 'test.sqlite'),
+    ...(onPostgres ? { DATABASE_URL: database.location } : {}),
     UPLOAD_DIR: join(dir, 'uploads'),
     SESSION_SECRET: 'a-test-secret-of-enough-length',
-    LOG_LEVEL: 'silent',
+    LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent',
     ...options.config,
   })
-  const dataSource = await openDatabase(config.DATABASE_PATH)
+  const dataSource = await openDatabase(config.database)
   if (options.demo) await seedDemo(dataSource)
   else {
     for (const u of DEMO_USERS) {
@@ -41,6 +47,7 @@ export async function createTestApp(options: TestAppOptions = {}) {
   const app = createApp(config)
   const close = async () => {
     await dataSource.destroy()
+    await database.drop()
     rmSync(dir, { recursive: true, force: true })
   }
   return { app, dataSource, config, dir, close }

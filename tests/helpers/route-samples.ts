@@ -14,16 +14,16 @@ export async function routeSamples(ds: DataSource): Promise<RouteSamples> {
     return rows.length ? String(Object.values(rows[0])[0]) : String(MISSING)
   }
   const builder = await first("SELECT id FROM users WHERE role = 'builder' ORDER BY id")
-  const buildId = await first(`SELECT id FROM builds WHERE ownerId = ${builder} ORDER BY id`)
+  const buildId = await first(`SELECT id FROM builds WHERE "ownerId" = ${builder} ORDER BY id`)
   const supplierId = await first('SELECT id FROM suppliers ORDER BY id')
   const ids: Record<string, Record<string, string>> = {
-    parts: { id: await first('SELECT id FROM parts ORDER BY id'), labelCode: await first('SELECT labelCode FROM parts ORDER BY id') },
+    parts: { id: await first('SELECT id FROM parts ORDER BY id'), labelCode: await first('SELECT "labelCode" FROM parts ORDER BY id') },
     bins: { id: await first('SELECT id FROM bins ORDER BY id'), code: await first('SELECT code FROM bins ORDER BY id') },
     scan: { id: await first('SELECT id FROM bins ORDER BY id') },
     racks: { id: await first('SELECT id FROM racks ORDER BY id') },
     workshops: { id: await first('SELECT id FROM workshops ORDER BY id') },
-    builds: { id: buildId, lineId: await first(`SELECT id FROM build_lines WHERE buildId = ${buildId} ORDER BY id`) },
-    suppliers: { id: supplierId, offerId: await first(`SELECT id FROM supplier_parts WHERE supplierId = ${supplierId} ORDER BY id`) },
+    builds: { id: buildId, lineId: await first(`SELECT id FROM build_lines WHERE "buildId" = ${buildId} ORDER BY id`) },
+    suppliers: { id: supplierId, offerId: await first(`SELECT id FROM supplier_parts WHERE "supplierId" = ${supplierId} ORDER BY id`) },
     orders: { id: await first('SELECT id FROM purchase_orders ORDER BY id') },
     outbox: { id: await first('SELECT id FROM outbox_messages ORDER BY id'), index: '0' },
     attachments: { id: await first('SELECT id FROM attachments ORDER BY id'), width: '160' },
