@@ -21,3 +21,16 @@ export function cannon(options: LoadOptions): Promise<Result & { wrapped: boolea
     child.send(options)
   })
 }
+
+export interface BurstAnswer { status: number; ms: number }
+
+/** Fires all `posts` at once from a child process (as `cannon` does, so the server has its core to itself). */
+export function burst(base: string, session: { cookie: string; token: string }, posts: { path: string; body: object }[]): Promise<{ answers: BurstAnswer[]; ms: number }> {
+  const child = fork(new URL('./burst-worker.mjs', import.meta.url), { stdio: 'inherit' })
+  return new Promise((resolve, reject) => {
+    child.once('message', (r) => resolve(r as { answers: BurstAnswer[]; ms: number }))
+    child.once('error', reject)
+    child.once('exit', (code) => { if (code) reject(new Error(`burst client exited ${code}`)) })
+    child.send({ base, ...session, posts })
+  })
+}

@@ -21,6 +21,7 @@ export async function latencies(baseUrl: string, path: string, n = SAMPLES, init
 export async function startBareServer() {
   const app = express()
   app.get('/bare', (_req, res) => { res.json({ ok: true }) })
+  app.post('/bare', express.json(), (req, res) => { res.json({ ok: true, got: req.body }) })
   const server = app.listen(0, '127.0.0.1')
   await new Promise((r) => server.once('listening', r))
   return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }

@@ -10,6 +10,9 @@ import { BOM_EPSILON, outstandingOf, type CuttingAllowance } from '../../shared/
 import { releaseInput, reserveInput, type ReleaseInput, type ReserveInput } from '../../shared/schemas/build'
 import type { BuildDetailDto, ReserveResultDto } from '../../shared/types/build'
 
+/** Stands in for the cutting allowance where no line is cut from bar (counted lines never use it). */
+const NOT_CUT: CuttingAllowance = { kerfMm: 0, facingMm: 0 }
+
 export interface Grant {
   lineId: number
   partCode: string
@@ -49,11 +52,13 @@ async function reserveLine(
     touchPart(tx, part.id)
   }
   const stillOpen = Math.max(0, outstanding - granted)
-  line.shortQuantity = allowPartial && granted + BOM_EPSILON < want
-    ? want - granted
-    : Math.min(line.shortQuantity, stillOpen)
-  if (line.shortQuantity < BOM_EPSILON) line.shortQuantity = 0
-  await tx.update(BuildLine, { id: line.id }, { shortQuantity: line.shortQuantity })
+  let short = allowPartial && granted + BOM_EPSILON < want ? want - granted : Math.min(line.shortQuantity, stillOpen)
+  if (short < BOM_EPSILON) short = 0
+  // Most reservations leave the recorded shortage as it was (none): no write then.
+  if (short !== line.shortQuantity) {
+    line.shortQuantity = short
+    await tx.update(BuildLine, { id: line.id }, { shortQuantity: short })
+  }
   touchPart(tx, part.id)
   grant.shortQuantity = line.shortQuantity
   return grant
@@ -96,7 +101,8 @@ export async function reserveIn(tx: EntityManager, build: Build, raw: ReserveInp
   // All of the build's parts at once, in id order, before any line takes its own lock.
   await lockParts(tx, partIds)
   const parts = new Map((await tx.findBy(Part, { id: In(partIds) })).map((p) => [p.id, p]))
-  const c = await cuttingAllowance()
+  // Kerf and facing only size bar lines: a request for counted parts skips the settings read.
+  const c = lines.some((l) => isBar(parts.get(l.partId)!)) ? await cuttingAllowance() : NOT_CUT
   const grants: Grant[] = []
   for (const line of lines) {
     grants.push(await reserveLine(tx, line, parts.get(line.partId)!, c, input.quantity, input.allowPartial, userId))
