@@ -13,7 +13,7 @@ import {
   type ThumbWidth, type UploadRulesDto,
 } from '../../shared/types/attachment'
 import type { AttachmentOwner } from '../../shared/schemas/attachment'
-import { displayName, judgeFileType, newStoredName, thumbMime, thumbName } from './upload-files'
+import { checkImage, displayName, judgeFileType, newStoredName, thumbMime, thumbName } from './upload-files'
 import { ThumbnailPool } from './thumbnail-pool'
 
 /** jimp 1.6 decodes these; WebP it cannot (no decoder bundled), so WebP is kept without thumbnails. */
@@ -107,6 +107,7 @@ export function createAttachmentService(config: Config) {
     /** Stores an upload the route has already authorised; answers before thumbnails exist. */
     async upload(owner: AttachmentOwner, file: UploadedFile, user: Actor): Promise<AttachmentDto> {
       const mime = await judgeFileType(file.buffer)
+      checkImage(file.buffer, mime)
       const storedName = newStoredName(mime)
       const path = join(dir, storedName)
       await writeFile(path, file.buffer, { flag: 'wx' })

@@ -1,4 +1,5 @@
 import { fileTypeFromBuffer } from 'file-type'
+import { imageSize } from 'image-size'
 import { randomBytes } from 'node:crypto'
 import { AppError } from '../errors'
 import { ACCEPTED_MIME_TYPES, type AcceptedMime } from '../../shared/types/attachment'
@@ -33,6 +34,73 @@ export async function judgeFileType(bytes: Buffer): Promise<AcceptedMime> {
   throw new AppError(415, 'UNSUPPORTED_FILE_TYPE',
     `${what} Upload a PNG, JPEG, WebP or GIF image, or a PDF drawing.`,
     { detected: found?.mime ?? null, accepted: ACCEPTED_MIME_TYPES })
+}
+
+/**
+ * Largest image accepted, in pixels: 100 megapixels covers any phone or scanner drawing, while
+ * a "decompression bomb" whose small file claims 100,000 × 100,000 pixels (40 GB decoded) is refused.
+ */
+export const MAX_IMAGE_PIXELS = 100_000_000
+
+const PNG_END = Buffer.from([0, 0, 0, 0, 0x49, 0x45, 0x4e, 0x44, 0xae, 0x42, 0x60, 0x82]) // IEND chunk
+const JPEG_END = Buffer.from([0xff, 0xd9]) // EOI marker
+const GIF_END = 0x3b // trailer byte
+
+/**
+ * Where a JPEG's first scan starts, walking the marker segments from the start so that an EXIF
+ * thumbnail (inside an APP1 segment, with its own end marker) is skipped. -1 when there is none.
+ */
+function jpegScanStart(bytes: Buffer): number {
+  let at = 2
+  while (at + 4 <= bytes.length && bytes[at] === 0xff) {
+    const marker = bytes[at + 1]
+    if (marker === 0xda) return at
+    if (marker === 0xff) { at += 1; continue } // fill byte
+    at += 2 + bytes.readUInt16BE(at + 2)
+  }
+  return -1
+}
+
+/** True when the image's own end marker is there: a file cut short in transfer has none. */
+function isComplete(bytes: Buffer, mime: AcceptedMime): boolean {
+  switch (mime) {
+    // Nothing may follow IEND in a PNG.
+    case 'image/png': return bytes.subarray(-PNG_END.length).equals(PNG_END)
+    // Stuffing keeps FF D9 out of scan data, so any EOI after the first scan ends the image;
+    // some cameras append their own data after it, which is fine.
+    case 'image/jpeg': {
+      const scan = jpegScanStart(bytes)
+      return scan > 0 && bytes.indexOf(JPEG_END, scan) > 0
+    }
+    case 'image/gif': return bytes[bytes.length - 1] === GIF_END
+    // WebP and PDF are never decoded here (no thumbnails), so there is nothing to protect.
+    default: return true
+  }
+}
+
+/**
+ * Refuses, before anything is stored, an image cut short in transfer (no end marker) or one
+ * whose header claims more pixels than MAX_IMAGE_PIXELS. Both would only fail later, in the
+ * thumbnail worker, leaving a drawing nobody can see.
+ */
+export function checkImage(bytes: Buffer, mime: AcceptedMime) {
+  if (mime === 'application/pdf') return
+  let size: { width?: number; height?: number }
+  try {
+    size = imageSize(bytes)
+  } catch {
+    throw new AppError(422, 'DAMAGED_IMAGE', "The image's header cannot be read: the file is damaged. Export or save it again and upload the new file.")
+  }
+  const { width = 0, height = 0 } = size
+  if (width * height > MAX_IMAGE_PIXELS) {
+    throw new AppError(413, 'IMAGE_TOO_LARGE',
+      `The image is ${width.toLocaleString('en-GB')} × ${height.toLocaleString('en-GB')} pixels; the largest accepted is ${MAX_IMAGE_PIXELS / 1e6} megapixels. Scale it down and upload it again.`,
+      { width, height, maxPixels: MAX_IMAGE_PIXELS })
+  }
+  if (!isComplete(bytes, mime)) {
+    throw new AppError(422, 'DAMAGED_IMAGE',
+      'The image ends too soon: it was cut short while copying or uploading. Upload the whole file again.')
+  }
 }
 
 /** A fresh random stored name with the extension of the judged type: "9f…c1.jpg". */

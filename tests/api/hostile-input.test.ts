@@ -3,6 +3,7 @@ import fc from 'fast-check'
 import type { Response } from 'supertest'
 import { createTestApp, clientAs, type Client } from '../helpers/app'
 import { databaseDigest } from '../helpers/db-digest'
+import { hugePngHeader, jpegBytes, pngBytes } from '../helpers/images'
 import { MAX_QUANTITY } from '../../shared/schemas/stock'
 
 type App = Awaited<ReturnType<typeof createTestApp>>
@@ -139,7 +140,7 @@ describe('hostile input: refused with 4xx, the database unchanged', () => {
     refused(await raw('application/json', big), 'a body over the 1 MB limit')
   })
 
-  it('refuses SVG with script and other non-images, whatever their names claim', async () => {
+  it('refuses SVG with script, non-images, bomb-like and truncated images, whatever their names claim', async () => {
     const files: [Buffer, string][] = [
       [Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'drawing.svg'],
       [Buffer.from('<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'), 'drawing.png'],
@@ -148,6 +149,11 @@ describe('hostile input: refused with 4xx, the database unchanged', () => {
       [Buffer.from('PK\u0003\u0004not really a zip'), 'bomb.png'],
       [Buffer.alloc(0), 'empty.png'],
       [Buffer.from('\u0000\u0000\u0000'), 'nul\u0000.png'],
+      // Decompression-bomb-like: a tiny PNG whose header claims 100,000 × 100,000 pixels.
+      [hugePngHeader(), 'bomb.png'],
+      // Truncated images: cut short in transfer, no end marker.
+      [(await jpegBytes(400, 300)).subarray(0, 900), 'half.jpg'],
+      [(await pngBytes(200, 100)).subarray(0, 120), 'half.png'],
     ]
     for (const [bytes, name] of files) {
       const res = await admin.agent.post(`/api/attachments?ownerType=part&ownerId=${ids.part}`).set('x-csrf-token', admin.token)
