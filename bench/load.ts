@@ -34,3 +34,36 @@ export function burst(base: string, session: { cookie: string; token: string }, 
     child.send({ base, ...session, posts })
   })
 }
+
+interface Sampler {
+  time: (url: string, headers?: Record<string, string>) => Promise<number>
+}
+let current: Sampler | undefined
+
+/**
+ * Latency of single requests, timed by a child process: a client in this process would make
+ * garbage that the server's own collector pauses for, counted in the server's figures.
+ * Started on first use, shared by every suite; it ends when the benchmark process does.
+ */
+export function sampler(): Sampler {
+  if (current) return current
+  const child = fork(new URL('./sampler-worker.mjs', import.meta.url), { stdio: 'inherit' })
+  child.unref()
+  child.channel?.unref()
+  const waiting = new Map<number, { resolve: (ms: number) => void; reject: (e: Error) => void }>()
+  let next = 0
+  child.on('message', (m: { id: number; ms?: number; status?: number; error?: string }) => {
+    const w = waiting.get(m.id)!
+    waiting.delete(m.id)
+    if (m.error || (m.status ?? 500) >= 400) w.reject(new Error(`sample answered ${m.error ?? m.status}`))
+    else w.resolve(m.ms!)
+  })
+  current = {
+    time: (url, headers = {}) => new Promise((resolve, reject) => {
+      const id = next++
+      waiting.set(id, { resolve, reject })
+      child.send({ id, url, headers })
+    }),
+  }
+  return current
+}

@@ -1,19 +1,15 @@
 import express from 'express'
 import type { AddressInfo } from 'node:net'
 import { percentile, record } from '../harness'
+import { sampler } from '../load'
 
 /** Requests made in each latency sample run. */
 const SAMPLES = 500
 
-/** Latency of GET `path` on an already listening server, sequential requests. */
-export async function latencies(baseUrl: string, path: string, n = SAMPLES, init?: RequestInit): Promise<number[]> {
+/** Latency of GET `path` on an already listening server, sequential requests timed from another process. */
+export async function latencies(baseUrl: string, path: string, n = SAMPLES, init?: { headers?: Record<string, string> }): Promise<number[]> {
   const times: number[] = []
-  for (let i = 0; i < n; i++) {
-    const t0 = performance.now()
-    const res = await fetch(baseUrl + path, init)
-    await res.arrayBuffer()
-    times.push(performance.now() - t0)
-  }
+  for (let i = 0; i < n; i++) times.push(await sampler().time(baseUrl + path, init?.headers))
   return times
 }
 

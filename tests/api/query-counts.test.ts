@@ -60,5 +60,7 @@ describe('queries per list request', () => {
     for (const b of bins.slice(0, 8)) counts.push((await count(`/api/bins/${b.code}`)))
     expect(counts.some((c) => c.rows > 0)).toBe(true)
     expect(Math.max(...counts.map((c) => c.n))).toBeLessThanOrEqual(MAX_QUERIES)
+    // The bin (joined with rack and workshop), its lots, their parts, their reservations.
+    expect(Math.max(...counts.map((c) => c.n))).toBe(4)
   })
 })
