@@ -1,10 +1,14 @@
 import { afterAll, beforeAll, expect, it } from 'vitest'
 import { createTestApp } from '../helpers/app'
+import { onPostgres } from '../helpers/test-database'
 import { stockEvents } from '../../server/db'
 import { runSoak } from '../../scripts/ledger-soak'
 
-/** The full 10,000 run takes minutes on two cores: `npx tsx … scripts/ledger-soak.ts 10000`. */
-const OPERATIONS = 1200
+/**
+ * The issue's 10,000 operations on SQLite (about half a minute here); the PostgreSQL pass runs
+ * 2,000 to keep CI short (`npx tsx … scripts/ledger-soak.ts 10000` runs any count by hand).
+ */
+const OPERATIONS = onPostgres ? 2000 : 10_000
 
 let t: Awaited<ReturnType<typeof createTestApp>>
 beforeAll(async () => {
@@ -24,4 +28,4 @@ it('keeps the ledger reconciled and stock never negative under six members worki
   expect(r.applied).toBeGreaterThan(OPERATIONS / 3)
   const negative = await t.dataSource.query('SELECT COUNT(*) AS n FROM stock_lots WHERE quantity < 0') as { n: number }[]
   expect(Number(negative[0].n)).toBe(0)
-}, 60_000)
+}, 300_000)
