@@ -2,12 +2,16 @@ import { defineConfig } from 'vitest/config'
 
 /**
  * Three projects so each kind of test can run alone (`npm run test:unit` …).
+ * Unit and API files run two at a time (vitest would use one worker on a two-core machine;
+ * API files wait on the database as much as they compute). Browser tests run afterwards, one
+ * file at a time: each drives a real Chromium against a real server.
  * Browser tests are vitest files too: playwright-core has no runner of its own.
  */
 export default defineConfig({
   test: {
     projects: [
-      { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'] } },
+      // A generous timeout: thumbnail tests do real image work, and CI machines can be slow.
+      { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], testTimeout: 30_000, maxWorkers: 2, sequence: { groupOrder: 0 } } },
       {
         test: {
           name: 'api',
@@ -15,6 +19,8 @@ export default defineConfig({
           setupFiles: ['tests/helpers/setup-env.ts'],
           testTimeout: 30_000,
           hookTimeout: 60_000,
+          maxWorkers: 2,
+          sequence: { groupOrder: 0 },
         },
       },
       {
@@ -24,8 +30,9 @@ export default defineConfig({
           setupFiles: ['tests/helpers/setup-env.ts'],
           testTimeout: 90_000,
           hookTimeout: 120_000,
-          // One browser at a time: the machine has two cores.
+          // One browser at a time, after the rest: the machine has two cores.
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
         },
       },
     ],
