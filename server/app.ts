@@ -16,6 +16,7 @@ import { usersRouter } from './routes/users'
 import { adminRouter } from './routes/admin'
 import { calcRouter } from './routes/calc'
 import { mountFeatureRouters } from './routes'
+import { startNotifications } from './services/notifications'
 import { AppError } from './errors'
 import { refuseHiddenText } from './middleware/text-guard'
 
@@ -77,6 +78,8 @@ export function createApp(config: Config) {
   app.use('/api/admin', adminRouter(config))
   app.use('/api/calc', calcRouter)
   mountFeatureRouters(app, config)
+  // Alerts follow every stock change and mail uses this config (timers start in server/index.ts).
+  startNotifications(config)
   app.use('/api', apiNotFound)
 
   serveClient(app, config.CLIENT_DIR)

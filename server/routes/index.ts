@@ -16,7 +16,6 @@ import { ordersRouter } from './orders'
 import { alertsRouter } from './alerts'
 import { outboxRouter } from './outbox'
 import { todayRouter } from './today'
-import { startNotifications } from '../services/notifications'
 
 /**
  * Mounts the routers of the stores features (parts, bins, stock, builds, labels, orders …).
@@ -43,5 +42,4 @@ export function mountFeatureRouters(app: Express, config: Config) {
   app.use('/api/scan', scanRouter)
   app.use('/api/stocktake', stockTakeRouter)
   app.use('/api/today', todayRouter)
-  startNotifications(config)
 }
