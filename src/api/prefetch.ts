@@ -1,4 +1,5 @@
 import { binsApi } from './bins'
+import { takeEarlyBin } from './early'
 import type { BinContentsDto } from '../../shared/types/stock'
 
 /** A prefetched answer older than this is not used (the view fetches afresh). */
@@ -11,6 +12,12 @@ let pending: { code: string; at: number; answer: Promise<BinContentsDto> } | und
  * page's code, so the page a scanned label opens does not wait for them one after another.
  */
 export function prefetchBin(code: string) {
+  // The page's own URL was read by early.ts before the app's script had even loaded.
+  const early = takeEarlyBin(code)
+  if (early) {
+    pending = { code, ...early }
+    return
+  }
   // Plain fetch, not request(): a signed-out visitor's 401 here must not trigger the sign-in
   // redirect while the router's own guard is sending them to /login with the right `next`.
   const answer = fetch(`/api/bins/${encodeURIComponent(code)}`, { headers: { accept: 'application/json' }, credentials: 'same-origin' })

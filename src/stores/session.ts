@@ -1,6 +1,7 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { authApi } from '../api/auth'
+import { takeEarlySession } from '../api/early'
 import { setCsrfToken } from '../api/http'
 import { roleAtLeast, type Role, type UserDto } from '../../shared/types/api'
 import type { LoginInput } from '../../shared/schemas/user'
@@ -12,7 +13,8 @@ export const useSessionStore = defineStore('session', () => {
   const loaded = ref(false)
 
   async function load() {
-    const s = await authApi.session()
+    // The first load uses the read index.html started with the page; a failed one is asked again.
+    const s = await (takeEarlySession()?.catch(() => authApi.session()) ?? authApi.session())
     setCsrfToken(s.csrfToken)
     user.value = s.user
     loaded.value = true
