@@ -2,9 +2,9 @@ import { defineConfig } from 'vitest/config'
 
 /**
  * Three projects so each kind of test can run alone (`npm run test:unit` …).
- * Unit and API files run two at a time (vitest would use one worker on a two-core machine;
- * API files wait on the database as much as they compute). Browser tests run afterwards, one
- * file at a time: each drives a real Chromium against a real server.
+ * Files run two at a time (vitest would use one worker on a two-core machine; API and browser
+ * files wait on a database, a server or a browser as much as they compute). Browser tests
+ * run after the others: each drives a real Chromium against a real server.
  * Browser tests are vitest files too: playwright-core has no runner of its own.
  */
 export default defineConfig({
@@ -30,8 +30,9 @@ export default defineConfig({
           setupFiles: ['tests/helpers/setup-env.ts'],
           testTimeout: 90_000,
           hookTimeout: 120_000,
-          // One browser at a time, after the rest: the machine has two cores.
-          fileParallelism: false,
+          // After the rest, two files at a time: each spends most of its time waiting on a
+          // browser or a server of its own (own port, own database), so two share two cores.
+          maxWorkers: 2,
           sequence: { groupOrder: 1 },
         },
       },
