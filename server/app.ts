@@ -49,7 +49,12 @@ export function createApp(config: Config) {
   const gzipApi = compression({ level: API_GZIP_LEVEL })
   const gzipFiles = compression()
   app.use((req, res, next) => (req.path.startsWith('/api/') ? gzipApi : gzipFiles)(req, res, next))
-  app.use(pinoHttp({ level: config.LOG_LEVEL, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
+  app.use(pinoHttp({
+    level: config.LOG_LEVEL,
+    autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+    // A session cookie or form token in a log file would let its reader act as that member.
+    redact: { paths: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'], censor: '[kept out of the log]' },
+  }))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseHiddenText)
 
