@@ -30,6 +30,8 @@ export default defineConfig({
           setupFiles: ['tests/helpers/setup-env.ts'],
           testTimeout: 90_000,
           hookTimeout: 120_000,
+          // A screen may take seconds to show a change on a busy machine (vitest's default: 1 s).
+          expect: { poll: { timeout: 15_000, interval: 100 } },
           // After the rest, two files at a time: each spends most of its time waiting on a
           // browser or a server of its own (own port, own database), so two share two cores.
           maxWorkers: 2,
