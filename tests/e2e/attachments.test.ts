@@ -18,7 +18,8 @@ describe('drawings and sketches in Chromium', () => {
     const partId = await apiFirst(page, '/parts?q=whistle', () => true)
     await page.goto(`${app.url}/parts/${partId}`)
     await page.getByTestId('attachment-drop').waitFor()
-    expect(await page.getByTestId('attachment-drop').innerText()).toMatch(/PDF drawings, up to 20 MB each/)
+    // The size limit arrives with the upload rules, a moment after the drop zone.
+    await expect.poll(() => page.getByTestId('attachment-drop').innerText()).toMatch(/PDF drawings, up to 20 MB each/)
 
     const photo = withExifOrientation(await jpegBytes(1200, 900, true), 6)
     await page.getByTestId('attachment-input').setInputFiles([
