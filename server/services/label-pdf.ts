@@ -1,7 +1,7 @@
 import QRCode from 'qrcode'
 import { notoSansPdf } from './pdf-doc'
 import { labelPlaces, PAPERS, type SheetLayout } from '../../shared/domain/label-sheets'
-import { LABEL_QR_LEVEL, qrModule } from '../../shared/domain/label-qr'
+import { darkRuns, LABEL_QR_LEVEL, qrModule } from '../../shared/domain/label-qr'
 import { labelBoxes, labelLines, LABEL_PADDING_MM, LINE_HEIGHT, PT_MM, type Box, type LabelFields } from '../../shared/domain/label-layout'
 import { CAUTIONS } from '../../shared/domain/cautions'
 import type { LabelItemDto } from '../../shared/types/labels'
@@ -52,21 +52,10 @@ function drawLabel(doc: Doc, item: LabelItemDto, xMm: number, yMm: number, opts:
  * and number formatting were most of the time of a 240-label sheet.
  */
 function drawQr(doc: Doc, url: string, xMm: number, yMm: number, sideMm: number) {
-  const qr = QRCode.create(url, { errorCorrectionLevel: LABEL_QR_LEVEL })
-  const n = qr.modules.size
-  const data = qr.modules.data
-  const { moduleMm, marginMm } = qrModule(sideMm, n, LABEL_PADDING_MM)
-  const parts: string[] = []
-  for (let row = 0; row < n; row++) {
-    let col = 0
-    while (col < n) {
-      if (!data[row * n + col]) { col++; continue }
-      const start = col
-      while (col < n && data[row * n + col]) col++
-      // A hair of overlap down the rows stops viewers drawing white seams between rectangles.
-      parts.push(`${start} ${row} ${col - start} 1.02 re`)
-    }
-  }
+  const { size, data } = QRCode.create(url, { errorCorrectionLevel: LABEL_QR_LEVEL }).modules
+  const { moduleMm, marginMm } = qrModule(sideMm, size, LABEL_PADDING_MM)
+  // A hair of overlap down the rows stops viewers drawing white seams between rectangles.
+  const parts = darkRuns(size, data).map(({ row, start, length }) => `${start} ${row} ${length} 1.02 re`)
   const m = pt(moduleMm)
   doc.save()
   doc.transform(m, 0, 0, m, pt(xMm + marginMm), pt(yMm + marginMm))

@@ -65,6 +65,27 @@ export function qrModule(sideMm: number, modules: number, paddingMm: number) {
   return { moduleMm, marginMm: REQUIRED_QUIET_ZONE_MODULES * moduleMm - paddingMm }
 }
 
+/** A run of dark modules in one row of a QR symbol: drawn as one rectangle. */
+export interface DarkRun { row: number; start: number; length: number }
+
+/**
+ * The dark modules of a symbol (`size` × `size`, row by row, as the qrcode package gives them)
+ * as horizontal runs: one rectangle per run keeps label files small and the print sharp.
+ */
+export function darkRuns(size: number, dark: ArrayLike<number | boolean>): DarkRun[] {
+  const runs: DarkRun[] = []
+  for (let row = 0; row < size; row++) {
+    let col = 0
+    while (col < size) {
+      if (!dark[row * size + col]) { col++; continue }
+      const start = col
+      while (col < size && dark[row * size + col]) col++
+      runs.push({ row, start, length: col - start })
+    }
+  }
+  return runs
+}
+
 export interface QrFit {
   version: number | null
   modules: number

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import QRCode from 'qrcode'
 import {
-  BYTE_CAPACITY, LABEL_QR_LEVEL, MIN_MODULE_MM, QR_LEVELS, REQUIRED_QUIET_ZONE_MODULES, modulesPerSide, qrFit,
+  BYTE_CAPACITY, darkRuns, LABEL_QR_LEVEL, MIN_MODULE_MM, QR_LEVELS, REQUIRED_QUIET_ZONE_MODULES, modulesPerSide, qrFit,
   qrVersionFor,
 } from '../../../shared/domain/label-qr'
 import { DEFAULT_LABEL_FIELDS, labelBoxes, LABEL_PADDING_MM } from '../../../shared/domain/label-layout'
@@ -28,6 +28,16 @@ describe('QR version and module size', () => {
     expect(modulesPerSide(1)).toBe(21)
     expect(modulesPerSide(3)).toBe(29)
     expect(modulesPerSide(4)).toBe(33)
+  })
+
+  it('draws a symbol as row runs that cover exactly its dark modules', () => {
+    expect(darkRuns(3, [1, 1, 0, 0, 0, 0, 0, 1, 1])).toEqual([
+      { row: 0, start: 0, length: 2 }, { row: 2, start: 1, length: 2 },
+    ])
+    const { size, data } = QRCode.create('http://localhost:3000/bins/A1-03', { errorCorrectionLevel: LABEL_QR_LEVEL }).modules
+    const painted = new Array<number>(size * size).fill(0)
+    for (const r of darkRuns(size, data)) for (let c = r.start; c < r.start + r.length; c++) painted[r.row * size + c] += 1
+    expect(painted).toEqual(Array.from(data, (v) => (v ? 1 : 0)))
   })
 
   it('fits our URLs at level M in version 3 (local) or 4 (a long public address)', () => {
