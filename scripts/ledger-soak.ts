@@ -19,16 +19,7 @@ import { release, reserve } from '../server/services/builds-reserve'
 import { createOrder } from '../server/services/orders'
 import { receiveOrder } from '../server/services/order-receive'
 import { stockModeOf } from '../shared/types/domain'
-
-/** mulberry32, a tiny seeded PRNG (common practice): one seed replays one series. */
-function prng(seed: number) {
-  return () => {
-    seed |= 0; seed = (seed + 0x6d2b79f5) | 0
-    let r = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-    r = (r + Math.imul(r ^ (r >>> 7), 61 | r)) ^ r
-    return ((r ^ (r >>> 14)) >>> 0) / 4294967296
-  }
-}
+import { prng } from '../tests/helpers/prng'
 
 export interface SoakResult {
   operations: number

@@ -8,16 +8,7 @@ import {
   adjustStock, countBin, drawFromLots, moveStock, receiveInto, returnToBin, reverseMovement,
 } from '../../server/services/stock'
 import { stockModeOf } from '../../shared/types/domain'
-
-/** mulberry32: a tiny seeded PRNG so a failing series can be replayed exactly (common practice). */
-function prng(seed: number) {
-  return () => {
-    seed |= 0; seed = (seed + 0x6d2b79f5) | 0
-    let r = Math.imul(seed ^ (seed >>> 15), 1 | seed)
-    r = (r + Math.imul(r ^ (r >>> 7), 61 | r)) ^ r
-    return ((r ^ (r >>> 14)) >>> 0) / 4294967296
-  }
-}
+import { prng } from '../helpers/prng'
 
 const SEED = 20_240_611
 const STEPS = 1000

@@ -1,16 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { piecesFromBar, planCuts, type CuttingInput, type CuttingResult } from '../../../shared/domain/cutting'
-
-/** mulberry32: a small seeded generator, so a failing case can be replayed. */
-function rng(seed: number) {
-  let a = seed
-  return () => {
-    a = (a + 0x6d2b79f5) | 0
-    let t = Math.imul(a ^ (a >>> 15), 1 | a)
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+import { prng } from '../../helpers/prng'
 
 /** Brute force over every assignment of pieces to bars (or to "not cut"): the optimum to compare with. */
 function bruteForce(input: CuttingInput) {
@@ -99,7 +89,7 @@ describe('cutting list with kerf (reference §7 [F][CP])', () => {
   })
 
   it('agrees with brute force on 400 seeded random small cases, kerf accounted exactly', () => {
-    const rand = rng(20240607)
+    const rand = prng(20240607)
     const pick = <T>(xs: T[]) => xs[Math.floor(rand() * xs.length)]
     for (let n = 0; n < 400; n++) {
       const stock = Array.from({ length: 1 + Math.floor(rand() * 3) }, (_, i) => ({ id: `s${i}`, lengthMm: pick([150, 300, 450, 600, 1000]) + Math.floor(rand() * 50) }))
@@ -120,7 +110,7 @@ describe('cutting list with kerf (reference §7 [F][CP])', () => {
   })
 
   it('falls back to the heuristics for long lists and still accounts every millimetre', () => {
-    const rand = rng(7)
+    const rand = prng(7)
     const input = {
       stock: Array.from({ length: 12 }, (_, i) => ({ id: `bar${i}`, lengthMm: 3000 })),
       cuts: Array.from({ length: 10 }, (_, i) => ({ label: `part ${i}`, lengthMm: 50 + Math.floor(rand() * 900), qty: 4 })),
