@@ -2,6 +2,7 @@ import 'reflect-metadata'
 import { mkdirSync } from 'node:fs'
 import { dirname } from 'node:path'
 import { DataSource } from 'typeorm'
+import { POSTGRES_URL } from './config'
 import { entities } from './entities'
 import { postgresMigrations, sqliteMigrations } from './migrations'
 
@@ -9,7 +10,7 @@ import { postgresMigrations, sqliteMigrations } from './migrations'
 const BUSY_TIMEOUT_MS = 5000
 
 /** True for a PostgreSQL address (DATABASE_URL); anything else is a SQLite file path. */
-export const isPostgresUrl = (location: string) => /^postgres(ql)?:\/\//.test(location)
+export const isPostgresUrl = (location: string) => POSTGRES_URL.test(location)
 
 /** The database location fit for a log line: a PostgreSQL address loses its password. */
 export function describeDatabase(location: string): string {
