@@ -1,10 +1,11 @@
 import { In, MoreThan, type EntityManager } from 'typeorm'
 import { db, inTransaction } from '../db'
-import { Bin, Part, Rack, Reservation, StockLot, Workshop } from '../entities'
+import { Bin, Part, Rack, StockLot, Workshop } from '../entities'
 import { conflict, notFound } from '../errors'
 import { newLabelCode } from './codes'
 import { isExpired, todayIso } from './stock-guards'
 import { QUANTITY_EPSILON } from './ledger'
+import { reservedTotals } from './stock-totals'
 import {
   binCreateInput, binUpdateInput, rackInput, rackUpdateInput, workshopInput,
   type BinCreateInput, type BinUpdateInput, type RackInput, type WorkshopInput,
@@ -72,7 +73,8 @@ export async function binContents(code: string): Promise<BinContentsDto> {
   })
   const partIds = [...new Set(lots.map((l) => l.partId))]
   const parts = new Map((partIds.length ? await m.findBy(Part, { id: In(partIds) }) : []).map((p) => [p.id, p]))
-  const reserved = await reservedOf(m, partIds)
+  // Only reservations: stockTotals would add an on-hand query the bin page does not show.
+  const reserved = await reservedTotals(partIds, m)
   const today = todayIso()
   const lines: BinLineDto[] = lots.map((l) => {
     const p = parts.get(l.partId)!
@@ -84,15 +86,6 @@ export async function binContents(code: string): Promise<BinContentsDto> {
     }
   })
   return { bin: toBinDto(bin, bin.rack, bin.rack.workshop), lines }
-}
-
-/** Σ reserved per part, in one grouped query (stockTotals would add an on-hand query the bin page does not show). */
-async function reservedOf(m: EntityManager, partIds: number[]): Promise<Map<number, number>> {
-  if (!partIds.length) return new Map()
-  const rows: { partId: number; total: number }[] = await m.createQueryBuilder(Reservation, 'r')
-    .select('r.partId', 'partId').addSelect('SUM(r.quantity)', 'total')
-    .where({ partId: In(partIds) }).groupBy('r.partId').getRawMany()
-  return new Map(rows.map((r) => [Number(r.partId), Number(r.total)]))
 }
 
 async function assertFreeBinCode(m: EntityManager, code: string, exceptId?: number) {

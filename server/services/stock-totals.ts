@@ -40,14 +40,20 @@ export async function stockTotals(partIds: number[], tx?: EntityManager): Promis
   const onHand: { partId: number; total: number }[] = await m.createQueryBuilder(StockLot, 'l')
     .select('l.partId', 'partId').addSelect('SUM(l.quantity)', 'total')
     .where({ partId: In(ids) }).groupBy('l.partId').getRawMany()
-  const reserved: { partId: number; total: number }[] = await m.createQueryBuilder(Reservation, 'r')
-    .select('r.partId', 'partId').addSelect('SUM(r.quantity)', 'total')
-    .where({ partId: In(ids) }).groupBy('r.partId').getRawMany()
-  for (const id of ids) result.set(id, { ...ZERO })
+  const reserved = await reservedTotals(ids, m)
+  for (const id of ids) result.set(id, { ...ZERO, reserved: reserved.get(id) ?? 0 })
   for (const r of onHand) result.get(Number(r.partId))!.onHand = Number(r.total)
-  for (const r of reserved) result.get(Number(r.partId))!.reserved = Number(r.total)
   for (const t of result.values()) t.available = t.onHand - t.reserved
   return result
+}
+
+/** Σ reserved per part, in one grouped query (parts with nothing reserved are absent). */
+export async function reservedTotals(partIds: number[], m: EntityManager = db().manager): Promise<Map<number, number>> {
+  if (partIds.length === 0) return new Map()
+  const rows: { partId: number; total: number }[] = await m.createQueryBuilder(Reservation, 'r')
+    .select('r.partId', 'partId').addSelect('SUM(r.quantity)', 'total')
+    .where({ partId: In(partIds) }).groupBy('r.partId').getRawMany()
+  return new Map(rows.map((r) => [Number(r.partId), Number(r.total)]))
 }
 
 export async function stockTotalsOf(partId: number, tx?: EntityManager): Promise<StockTotals> {
