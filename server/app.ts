@@ -19,8 +19,9 @@ import { mountFeatureRouters } from './routes'
 import { startNotifications } from './services/notifications'
 import { AppError } from './errors'
 import { refuseHiddenText } from './middleware/text-guard'
+import { renewSignedInSession } from './middleware/session-renewal'
 
-/** Session cookie lifetime: 12 hours, a long workshop day. */
+/** Session lifetime after the last request: 12 hours, a long workshop day (see session-renewal.ts). */
 const SESSION_MAX_AGE_MS = 12 * 60 * 60 * 1000
 /** zlib's fastest level, for JSON answers (see where it is used). */
 const API_GZIP_LEVEL = 1
@@ -49,12 +50,16 @@ export function createApp(config: Config) {
   const gzipApi = compression({ level: API_GZIP_LEVEL })
   const gzipFiles = compression()
   app.use((req, res, next) => (req.path.startsWith('/api/') ? gzipApi : gzipFiles)(req, res, next))
-  app.use(pinoHttp({
-    level: config.LOG_LEVEL,
-    autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-    // A session cookie or form token in a log file would let its reader act as that member.
-    redact: { paths: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'], censor: '[kept out of the log]' },
-  }))
+  // With logging off (LOG_LEVEL=silent) no request logger is made at all: pino-http builds a
+  // child logger and serialises the request for every call even when it writes nothing.
+  if (config.LOG_LEVEL !== 'silent') {
+    app.use(pinoHttp({
+      level: config.LOG_LEVEL,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // A session cookie or form token in a log file would let its reader act as that member.
+      redact: { paths: ['req.headers.cookie', 'req.headers["x-csrf-token"]', 'res.headers["set-cookie"]'], censor: '[kept out of the log]' },
+    }))
+  }
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseHiddenText)
 
@@ -64,11 +69,13 @@ export function createApp(config: Config) {
     store: new DatabaseSessionStore(),
     resave: false,
     saveUninitialized: false,
-    rolling: true,
+    // Not rolling: renewSignedInSession sends the cookie again every ten minutes, not every answer.
+    rolling: false,
     cookie: { httpOnly: true, sameSite: 'lax', secure: config.HTTPS, maxAge: SESSION_MAX_AGE_MS },
   }))
   const passport = configurePassport()
   app.use(passport.session())
+  app.use(renewSignedInSession)
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.get('x-csrf-token'),

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest'
 import request from 'supertest'
 import { clientAs, clientFor, createTestApp } from '../helpers/app'
 
@@ -29,14 +29,15 @@ describe('POST /api/auth/login', () => {
   })
 
   it('changes the session id at sign-in', async () => {
-    const c = await clientFor(t.app)
-    const before = await c.post('/api/auth/login', { username: 'nobody', password: 'x' })
-    expect(before.status).toBe(401)
-    const firstCookie = String((await c.get('/api/auth/session')).headers['set-cookie'] ?? '')
-    const res = await c.post('/api/auth/login', { username: 'viewer', password: 'brass-viewer-1' })
-    const secondCookie = String(res.headers['set-cookie'])
-    expect(secondCookie).toMatch(/binwright\.sid=/)
-    expect(secondCookie).not.toBe(firstCookie)
+    const first = await request(t.app).get('/api/auth/session')
+    const anon = String(first.headers['set-cookie']).split(';')[0]
+    expect(anon).toMatch(/^binwright\.sid=.+/)
+    const login = (body: object) => request(t.app).post('/api/auth/login').set('cookie', anon).set('x-csrf-token', first.body.csrfToken).send(body)
+    expect((await login({ username: 'nobody', password: 'x' })).status).toBe(401)
+    const res = await login({ username: 'viewer', password: 'brass-viewer-1' })
+    const signedIn = String(res.headers['set-cookie']).split(';')[0]
+    expect(signedIn).toMatch(/^binwright\.sid=.+/)
+    expect(signedIn).not.toBe(anon)
   })
 
   it('answers 429 after too many wrong passwords for one user', async () => {
@@ -77,6 +78,43 @@ describe('POST /api/auth/logout', () => {
     expect(logout.status).toBe(204)
     const replay = await request(t.app).get('/api/builds').set('cookie', cookie)
     expect(replay.status).toBe(401)
+  })
+})
+
+describe('session lifetime', () => {
+  afterEach(() => { vi.useRealTimers() })
+  const expiresOf = (setCookie: string) => Date.parse(/Expires=([^;]+)/.exec(setCookie)![1])
+
+  it('sends the cookie again with a fresh 12 hours every ten minutes of use, not on every answer', async () => {
+    const c = await clientAs(t.app, 'builder')
+    const setCookie = async () => {
+      const res = await c.get('/api/builds').expect(200)
+      return res.headers['set-cookie'] ? String(res.headers['set-cookie']) : undefined
+    }
+    await setCookie() // the first request after sign-in starts the renewal clock
+    const start = Date.now()
+    vi.useFakeTimers({ toFake: ['Date'], now: start })
+    expect(await setCookie()).toBeUndefined()
+    vi.setSystemTime(start + 9 * 60_000)
+    expect(await setCookie()).toBeUndefined()
+    vi.setSystemTime(start + 11 * 60_000)
+    const renewed = await setCookie()
+    expect(renewed).toMatch(/binwright\.sid=/)
+    // Expires is written to the second: 12 hours from this request, give or take one.
+    expect(Math.abs(expiresOf(renewed!) - (start + 11 * 60_000 + 12 * 3600_000))).toBeLessThan(1500)
+    expect(await setCookie()).toBeUndefined()
+  })
+
+  it('keeps a session alive past 12 hours of steady use and ends it 12 hours after the last request', async () => {
+    const c = await clientAs(t.app, 'viewer')
+    const start = Date.now()
+    vi.useFakeTimers({ toFake: ['Date'], now: start })
+    for (let hour = 1; hour <= 14; hour++) {
+      vi.setSystemTime(start + hour * 3600_000)
+      expect((await c.get('/api/auth/session')).body.user?.username).toBe('viewer')
+    }
+    vi.setSystemTime(start + 14 * 3600_000 + 12 * 3600_000 + 60_000)
+    expect((await c.get('/api/auth/session')).body.user).toBeNull()
   })
 })
 
