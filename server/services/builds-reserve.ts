@@ -48,7 +48,11 @@ async function reserveLine(
   if (granted + BOM_EPSILON < want && !allowPartial) return grant
   if (granted > BOM_EPSILON) {
     if (held) await tx.increment(Reservation, { id: held.id }, 'quantity', granted)
-    else await tx.insert(Reservation, { partId: part.id, buildId: line.buildId, buildLineId: line.id, quantity: granted, userId })
+    else {
+      // updateEntity(false): no read-back of the new row's id and createdAt, which nothing here uses.
+      await tx.createQueryBuilder().insert().into(Reservation).updateEntity(false)
+        .values({ partId: part.id, buildId: line.buildId, buildLineId: line.id, quantity: granted, userId }).execute()
+    }
     touchPart(tx, part.id)
   }
   const stillOpen = Math.max(0, outstanding - granted)
