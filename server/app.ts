@@ -63,16 +63,7 @@ export function createApp(config: Config) {
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', refuseHiddenText)
 
-  app.use(session({
-    name: 'binwright.sid',
-    secret: config.SESSION_SECRET ?? randomBytes(32).toString('hex'),
-    store: new DatabaseSessionStore(),
-    resave: false,
-    saveUninitialized: false,
-    // Not rolling: renewSignedInSession sends the cookie again every ten minutes, not every answer.
-    rolling: false,
-    cookie: { httpOnly: true, sameSite: 'lax', secure: config.HTTPS, maxAge: SESSION_MAX_AGE_MS },
-  }))
+  app.use(sessionMiddleware(config))
   const passport = configurePassport()
   app.use(passport.session())
   app.use(renewSignedInSession)
@@ -104,6 +95,20 @@ export function createApp(config: Config) {
   serveClient(app, config.CLIENT_DIR)
   app.use(errorHandler)
   return app
+}
+
+/** express-session over our own database: the signed cookie every request of a member carries. */
+export function sessionMiddleware(config: Config) {
+  return session({
+    name: 'binwright.sid',
+    secret: config.SESSION_SECRET ?? randomBytes(32).toString('hex'),
+    store: new DatabaseSessionStore(),
+    resave: false,
+    saveUninitialized: false,
+    // Not rolling: renewSignedInSession sends the cookie again every ten minutes, not every answer.
+    rolling: false,
+    cookie: { httpOnly: true, sameSite: 'lax', secure: config.HTTPS, maxAge: SESSION_MAX_AGE_MS },
+  })
 }
 
 /** Serves the built client (CLIENT_DIR) with an SPA fallback, when it has been built. */

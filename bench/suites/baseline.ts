@@ -2,6 +2,10 @@ import express from 'express'
 import type { AddressInfo } from 'node:net'
 import { percentile, record } from '../harness'
 import { sampler } from '../load'
+import { sessionMiddleware } from '../../server/app'
+import { configurePassport } from '../../server/middleware/auth'
+import { renewSignedInSession } from '../../server/middleware/session-renewal'
+import type { Config } from '../../server/config'
 
 /** Requests made in each latency sample run. */
 const SAMPLES = 500
@@ -18,6 +22,23 @@ export async function startBareServer() {
   const app = express()
   app.get('/bare', (_req, res) => { res.json({ ok: true }) })
   app.post('/bare', express.json(), (req, res) => { res.json({ ok: true, got: req.body }) })
+  const server = app.listen(0, '127.0.0.1')
+  await new Promise((r) => server.once('listening', r))
+  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }
+}
+
+/**
+ * A second baseline: a bare Express JSON route behind only the sign-in stack the product must
+ * use (express-session over our session store, passport's session, the cookie renewal), with
+ * the app's own session options. No search can be faster than this route: the search route
+ * needs a signed-in member, so this bounds any ratio of the search to the bare route.
+ */
+export async function startSignInStackServer(config: Config) {
+  const app = express()
+  app.use(sessionMiddleware(config))
+  app.use(configurePassport().session())
+  app.use(renewSignedInSession)
+  app.get('/bare', (req, res) => { res.json({ ok: true, signedIn: Boolean(req.user) }) })
   const server = app.listen(0, '127.0.0.1')
   await new Promise((r) => server.once('listening', r))
   return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }
