@@ -75,9 +75,9 @@ type Tx = Parameters<Parameters<typeof inTransaction>[0]>[0]
 
 async function seedBuilds(tx: Tx, users: Record<string, User>, parts: Part[]) {
   const byCode = (prefix: string) => parts.find((p) => p.code.startsWith(prefix))!
-  const launch = await tx.save(Build, {
-    name: 'Twin-cylinder launch engine, 1 in bore', ownerId: users.builder.id, status: 'active',
-    description: 'Double-acting twin with slide valves for the club launch; first run on air in the spring.',
+  const vertical = await tx.save(Build, {
+    name: 'Single-cylinder vertical engine, 7/8 in bore', ownerId: users.builder.id, status: 'active',
+    description: 'Double-acting vertical with a piston valve, for the club\'s display stand at the summer rally.',
     targetDate: isoDaysFromNow(120),
   })
   const lines: [string, number, string][] = [
@@ -88,17 +88,17 @@ async function seedBuilds(tx: Tx, users: Record<string, User>, parts: Part[]) {
   ]
   let position = 0
   for (const [code, quantity, note] of lines) {
-    await tx.save(BuildLine, { buildId: launch.id, partId: byCode(code).id, quantity, note, position: position++ })
+    await tx.save(BuildLine, { buildId: vertical.id, partId: byCode(code).id, quantity, note, position: position++ })
   }
   const oscillator = await tx.save(Build, {
     name: 'Single oscillating engine for the junior section', ownerId: users.keeper.id, status: 'planned',
     description: 'A simple first engine for the juniors to build over the winter.', targetDate: isoDaysFromNow(60),
   })
   await tx.save(BuildLine, { buildId: oscillator.id, partId: byCode('ROUND-9.525').id, quantity: 60, pieces: 2, note: 'cylinder blanks', position: 0 })
-  // The launch engine holds its gaskets, and wants more ME studs for the steam chest than the
+  // The vertical engine holds its gaskets, and wants more ME studs for the steam chest than the
   // stores have: reserving what there is (through the builds service) records one shortage.
   const meStud = parts.find((p) => p.name.startsWith('5/32-40 ME stud'))!
-  const chest = await tx.save(BuildLine, { buildId: launch.id, partId: meStud.id, quantity: 16, note: 'steam chest cover studs', position })
-  const gaskets = await tx.findOneByOrFail(BuildLine, { buildId: launch.id, partId: byCode('GSK-0.4').id })
-  for (const line of [gaskets, chest]) await reserveIn(tx, launch, { lineId: line.id, allowPartial: true }, users.builder.id)
+  const chest = await tx.save(BuildLine, { buildId: vertical.id, partId: meStud.id, quantity: 16, note: 'steam chest cover studs', position })
+  const gaskets = await tx.findOneByOrFail(BuildLine, { buildId: vertical.id, partId: byCode('GSK-0.4').id })
+  for (const line of [gaskets, chest]) await reserveIn(tx, vertical, { lineId: line.id, allowPartial: true }, users.builder.id)
 }

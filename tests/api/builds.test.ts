@@ -98,7 +98,7 @@ describe('POST /api/builds/:id/reserve', () => {
   })
 
   it('refuses more than is free with 409 naming the shortfall, and changes nothing', async () => {
-    const gsk = await part('GSK-0.4') // 6 on hand, 4 held by the demo launch engine
+    const gsk = await part('GSK-0.4') // 6 on hand, 4 held by the demo vertical engine
     const stud = await part('7BA-STUD-16') // 18 on hand
     const b = await newBuild(builder, 'Over-reserve', [{ prefix: '7BA-STUD-16', quantity: 4 }, { prefix: 'GSK-0.4', quantity: 9 }])
     const before = await stockTotalsOf(gsk.id)
@@ -213,9 +213,9 @@ describe('POST /api/builds/:id/status', () => {
 })
 
 describe('the demo workshop', () => {
-  it('has the launch engine holding its gaskets through the builds service, and one line short', async () => {
-    const launch = await t.dataSource.getRepository(Build).findOneByOrFail({ status: 'active' })
-    const detail: BuildDetailDto = (await viewer.get(`/api/builds/${launch.id}`)).body
+  it('has the vertical engine holding its gaskets through the builds service, and one line short', async () => {
+    const vertical = await t.dataSource.getRepository(Build).findOneByOrFail({ status: 'active' })
+    const detail: BuildDetailDto = (await viewer.get(`/api/builds/${vertical.id}`)).body
     expect(detail.lines.map((l) => [l.note, l.reserved, l.shortQuantity])).toEqual([
       ['cylinder cover studs', 0, 0], ['cylinder cover nuts', 0, 0], ['valve chest studs', 0, 0],
       ['cylinder cover gaskets', 4, 0], ['steam chest cover studs', 10, 6],

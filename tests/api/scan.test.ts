@@ -58,7 +58,7 @@ describe('GET /api/scan/bins/:id/draw-lines', () => {
     expect(res.status).toBe(200)
     const lines = res.body as DrawLineDto[]
     expect(lines).toHaveLength(1)
-    expect(lines[0]).toMatchObject({ buildName: 'Twin-cylinder launch engine, 1 in bore', note: 'cylinder cover nuts', open: 24, mine: true, bar: false })
+    expect(lines[0]).toMatchObject({ buildName: 'Single-cylinder vertical engine, 7/8 in bore', note: 'cylinder cover nuts', open: 24, mine: true, bar: false })
   })
 
   it('shows a viewer with no builds nothing, and a storekeeper every open build', async () => {
@@ -70,7 +70,7 @@ describe('GET /api/scan/bins/:id/draw-lines', () => {
 
   it('drops lines already drawn in full', async () => {
     const bin = await binByCode(t.dataSource, 'A1-05')
-    const build = await t.dataSource.getRepository(Build).findOneByOrFail({ name: 'Twin-cylinder launch engine, 1 in bore' })
+    const build = await t.dataSource.getRepository(Build).findOneByOrFail({ name: 'Single-cylinder vertical engine, 7/8 in bore' })
     const line = await t.dataSource.getRepository(BuildLine).findOneByOrFail({ buildId: build.id, note: 'valve chest studs' })
     const draw = await builder.post(`/api/builds/${build.id}/draw`, { lineId: line.id, binId: bin.id, quantity: 12 })
     expect(draw.status).toBe(200)

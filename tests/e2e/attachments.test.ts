@@ -52,7 +52,7 @@ describe('drawings and sketches in Chromium', () => {
 
   it("lets a builder on a phone add to their own build, and shows no upload on someone else's", async () => {
     const page = await app.openAs('builder', { viewport: PHONE })
-    const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Twin-cylinder launch engine'))
+    const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Single-cylinder vertical engine'))
     const others = await apiFirst(page, '/builds', (b) => b.name.startsWith('Single oscillating engine'))
     await page.goto(`${app.url}/builds/${own}`)
     await page.getByTestId('attachment-input').setInputFiles({ name: 'crankshaft.png', mimeType: 'image/png', buffer: await pngBytes(900, 600) })
@@ -70,7 +70,7 @@ describe('drawings and sketches in Chromium', () => {
 
   it('shows a viewer on a phone the thumbnails but no upload or delete', async () => {
     const page = await app.openAs('viewer', { viewport: PHONE })
-    const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Twin-cylinder launch engine'))
+    const own = await apiFirst(page, '/builds', (b) => b.name.startsWith('Single-cylinder vertical engine'))
     await page.goto(`${app.url}/builds/${own}`)
     await page.locator('img[alt="crankshaft.png"]').waitFor({ timeout: 30_000 })
     expect(await page.getByTestId('attachment-input').count()).toBe(0)

@@ -18,7 +18,7 @@ import { demoUser } from '../helpers/app'
 import type { Role } from '../../shared/types/api'
 import { startMailSink, type MailSink } from '../../server/services/mail-sink'
 
-/** The launch engine of the demo (the builder's active build) needs 24 of these and holds none. */
+/** The vertical engine of the demo (the builder's active build) needs 24 of these and holds none. */
 const NUT = /^7BA-NUT/
 /** Valve chest gasket: 3 in stock against a reorder point of 4, so low from the start. */
 const LOW_PART = 'GSK-0.25-PAP'
@@ -41,7 +41,7 @@ const binLine = (page: Page) => page.locator('[data-testid^="line-7BA-NUT"]').fi
 
 async function openLaunchBuild(page: Page, url: string) {
   await page.goto(`${url}/builds`)
-  await page.getByRole('link', { name: /Twin-cylinder launch engine/ }).first().click()
+  await page.getByRole('link', { name: /Single-cylinder vertical engine/ }).first().click()
   await page.waitForURL(/\/builds\/\d+$/)
   await lineRow(page, NUT).waitFor()
 }
@@ -54,7 +54,7 @@ async function drawTwoNutsAtBin(page: Page, shot: string) {
   await page.getByTestId('bin-movement').first().waitFor()
   await line.getByTestId('action-draw').click()
   const form = page.getByTestId('action-form')
-  await expect.poll(() => form.getByTestId('draw-line').first().innerText()).toMatch(/Twin-cylinder launch engine[\s\S]*cylinder cover nuts[\s\S]*24 pcs reserved/)
+  await expect.poll(() => form.getByTestId('draw-line').first().innerText()).toMatch(/Single-cylinder vertical engine[\s\S]*cylinder cover nuts[\s\S]*24 pcs reserved/)
   await form.getByTestId('quantity').fill('2')
   await form.getByTestId('action-confirm').click()
   await expect.poll(() => line.getByTestId('on-hand').innerText()).toBe('118 pcs')
@@ -62,7 +62,7 @@ async function drawTwoNutsAtBin(page: Page, shot: string) {
   const newest = page.getByTestId('bin-movement').first()
   await expect.poll(() => newest.innerText()).toMatch(/−2\s+7BA full nut, brass/)
   expect(await newest.innerText()).toContain('Nell Ashworth')
-  expect(await newest.innerText()).toContain('Twin-cylinder launch engine')
+  expect(await newest.innerText()).toContain('Single-cylinder vertical engine')
   await screenshot(page, shot)
 }
 
@@ -86,7 +86,7 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
 
     it('1. scan a bin label: a builder types the code as a scanner would and draws two nuts held for the build', async () => {
       const page = await openAs('builder')
-      // The demo's launch engine holds no nuts yet: reserve its nut line first, from the build.
+      // The demo's vertical engine holds no nuts yet: reserve its nut line first, from the build.
       await openLaunchBuild(page, app.url)
       await lineRow(page, NUT).getByRole('button', { name: 'Reserve' }).click()
       await expect.poll(() => figure(lineRow(page, NUT), 'held')).toBe('24 pcs')
@@ -131,10 +131,10 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
       })
     }
 
-    it('2. reserve fasteners for a build: a new twin-cylinder build, four lines by trade queries, a shortage, a cutting plan printed', async () => {
+    it('2. reserve fasteners for a build: a new mill-engine build, four lines by trade queries, a shortage, a cutting plan printed', async () => {
       const page = await openAs('builder', '/builds')
       await page.getByTestId('new-build').click()
-      const name = `Twin-cylinder horizontal engine (${label})`
+      const name = `Horizontal mill engine (${label})`
       await page.getByTestId('build-name').fill(name)
       await page.getByRole('button', { name: 'Open the build' }).click()
       await page.waitForURL(/\/builds\/\d+$/)
@@ -142,7 +142,7 @@ function journeys(viewport: typeof PHONE, label: string, phone: boolean) {
 
       await addBySearch(page, '5ba stud', /^5BA-STUD/, 8)
       await addBySearch(page, '5ba nut', /^5BA-NUT/, 8)
-      // Six cover gaskets in stock, four held by the launch engine: eight needed is six short.
+      // Six cover gaskets in stock, four held by the vertical engine: eight needed is six short.
       await addBySearch(page, 'gasket 0.4', /^GSK-0\.4/, 8)
       await addBySearch(page, 'brass round 3/8', /^ROUND-9\.525/, 45, 2)
 
