@@ -97,6 +97,7 @@ declare module 'vue' {
     LabelChooser: typeof import('./components/labels/LabelChooser.vue')['default']
     LabelFace: typeof import('./components/labels/LabelFace.vue')['default']
     LabelSheetPreview: typeof import('./components/labels/LabelSheetPreview.vue')['default']
+    LineDialog: typeof import('./components/build/LineDialog.vue')['default']
     LineEditDialog: typeof import('./components/build/LineEditDialog.vue')['default']
     LoadingOutlined: typeof import('@ant-design/icons-vue')['LoadingOutlined']
     MenuOutlined: typeof import('@ant-design/icons-vue')['MenuOutlined']

@@ -24,7 +24,7 @@ async function addBySearch(page: Page, query: string, code: RegExp, quantity: nu
 const lineRow = (page: Page, code: RegExp) => page.locator('[data-testid="bom-table"] tbody tr.ant-table-row').filter({ hasText: code })
 
 describe('a builder\'s build in Chromium', () => {
-  it('creates a build, adds three lines by search, reserves all, sees the shortage, draws a line, and the part page shows the new on hand', async () => {
+  it('creates a build, adds three lines by search, reserves all, sees the shortage, draws a line, returns some of it, changes its note, and the part page shows the new on hand', async () => {
     const page = await app.openAs('builder', { path: '/builds' })
     await page.getByTestId('new-build').click()
     await page.getByTestId('build-name').fill('Horizontal mill engine')
@@ -55,10 +55,26 @@ describe('a builder\'s build in Chromium', () => {
     expect(await nutRow.locator('td').nth(2).innerText()).toBe('0 pcs')
     await screenshot(page, 'builds-detail-drawn')
 
+    // Three of the eight go back to a bin, through the line's menu.
+    const menuItem = async (name: string) => {
+      await nutRow.getByRole('button', { name: /^More for/ }).click()
+      await page.getByRole('menuitem', { name }).click()
+    }
+    await menuItem('Return to a bin')
+    await page.getByTestId('return-quantity').fill('3')
+    await page.getByRole('button', { name: 'Return to the bin' }).click()
+    await expect.poll(() => nutRow.locator('td').nth(3).innerText(), { timeout: 10_000 }).toBe('5 pcs')
+    // And the line's note changes through the same frame of dialog.
+    await menuItem('Change quantity or note')
+    const dialog = page.locator('.ant-modal', { hasText: 'Change 6BA-NUT' })
+    await dialog.getByTestId('line-note').fill('valve chest nuts')
+    await dialog.getByRole('button', { name: 'Save' }).click()
+    await expect.poll(() => nutRow.innerText(), { timeout: 10_000 }).toContain('valve chest nuts')
+
     await nutRow.locator('a').first().click()
     await page.waitForURL(/\/parts\/\d+$/)
-    // 35 in A1-06 before; 8 drawn for the build.
-    await expect.poll(() => page.getByTestId('part-totals').innerText(), { timeout: 10_000 }).toMatch(/On hand\s+27 pcs/)
+    // 35 in A1-06 before; 8 drawn for the build, 3 of them returned.
+    await expect.poll(() => page.getByTestId('part-totals').innerText(), { timeout: 10_000 }).toMatch(/On hand\s+30 pcs/)
     await page.getByTestId('part-reservations').waitFor()
     await screenshot(page, 'builds-part-after-draw')
     await page.close()
