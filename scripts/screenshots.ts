@@ -65,8 +65,9 @@ async function shoot(browser: Browser, url: string, role: Role, shots: Shot[]) {
 
 async function main() {
   mkdirSync(OUT_DIR, { recursive: true })
-  const server = await startServer()
+  // Chromium first: when it cannot be started (not installed), no server is left running.
   const browser = await launchBrowser()
+  const server = await startServer().catch(async (err) => { await browser.close(); throw err })
   try {
     await shootAll(browser, server.url)
   } finally {

@@ -51,8 +51,9 @@ async function untilUsable(page: Page, go: () => Promise<unknown>) {
 }
 
 async function binPageTimes() {
-  const server = await startServer()
+  // Chromium first: when it cannot be started (not installed), no server is left running.
   const browser = await launchBrowser()
+  const server = await startServer().catch(async (err) => { await browser.close(); throw err })
   try {
     const page = await browser.newPage({ viewport: PHONE })
     await signIn(page, server.url, 'builder')
