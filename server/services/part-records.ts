@@ -6,7 +6,7 @@ import {
 import { db, inTransaction } from '../db'
 import { conflict, notFound } from '../errors'
 import { checkedAttributes, createPart, freeCode, suggestPartCode, updatePart } from './parts'
-import { partsChanged } from './part-search-index'
+import { afterCatalogueWrite, partsChanged } from './part-search-index'
 import { toPartDetail } from './part-summaries'
 import { partAttributes, type PartInput } from '../../shared/schemas/part'
 import type { PartDetailDto } from '../../shared/types/part'
@@ -26,28 +26,15 @@ export async function partByLabel(labelCode: string): Promise<PartDetailDto> {
   return toPartDetail(part)
 }
 
-/**
- * Runs a catalogue write, then tells the search again which parts changed once it has
- * committed or rolled back. The services mark them inside the transaction too, but a search
- * that ran meanwhile may have indexed or cached what it saw before the outcome (uncommitted
- * rows on SQLite's one connection, the old rows on PostgreSQL's others).
- */
-async function partWrite<T>(ids: number[], work: () => Promise<T>, newId?: (result: T) => number): Promise<T> {
-  try {
-    const result = await work()
-    partsChanged(newId ? [...ids, newId(result)] : ids)
-    return result
-  } catch (err) {
-    partsChanged(ids)
-    throw err
-  }
-}
-
 export const createPartRecord = (input: PartInput) =>
-  partWrite([], () => inTransaction(async (tx) => toPartDetail(await createPart(tx, input), tx)), (dto) => dto.id)
+  afterCatalogueWrite([], (written) => inTransaction(async (tx) => {
+    const part = await createPart(tx, input)
+    written.push(part.id)
+    return toPartDetail(part, tx)
+  }))
 
 export const updatePartRecord = (id: number, input: PartInput) =>
-  partWrite([id], () => inTransaction(async (tx) => {
+  afterCatalogueWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     const kindLocked = await tx.existsBy(Movement, { partId: id }) || await tx.existsBy(StockLot, { partId: id })
     return toPartDetail(await updatePart(tx, part, input, { kindLocked }), tx)
@@ -55,7 +42,7 @@ export const updatePartRecord = (id: number, input: PartInput) =>
 
 /** Archived parts leave lists and search but keep their ledger; restoring brings them back. */
 export const setArchived = (id: number, archived: boolean) =>
-  partWrite([id], () => inTransaction(async (tx) => {
+  afterCatalogueWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     part.archived = archived
     await tx.save(Part, part)
@@ -72,7 +59,7 @@ const REFERENCES = [
 
 /** Deletes a part entered by mistake; one with a ledger, stock or other records is refused (archive it). */
 export const deletePart = (id: number) =>
-  partWrite([id], () => inTransaction(async (tx) => {
+  afterCatalogueWrite([id], () => inTransaction(async (tx) => {
     const part = await findPart(id, tx)
     const used: string[] = []
     for (const [entity, what] of REFERENCES) if (await tx.existsBy(entity, { partId: id })) used.push(what)

@@ -60,6 +60,22 @@ export function partsChanged(ids?: number[]) {
   if (dirty.size > FULL_REBUILD_AFTER) rebuildAll = true
 }
 
+/**
+ * Runs a catalogue write and marks the parts it wrote (`ids`, and any `work` adds to `written`)
+ * changed again once it has committed or rolled back. The services mark them inside the
+ * transaction too, but a search that ran meanwhile may have indexed or cached what it saw
+ * before the outcome (uncommitted rows on SQLite's one connection, the old rows on
+ * PostgreSQL's others).
+ */
+export async function afterCatalogueWrite<T>(ids: number[], work: (written: number[]) => Promise<T>): Promise<T> {
+  const written = [...ids]
+  try {
+    return await work(written)
+  } finally {
+    if (written.length) partsChanged(written)
+  }
+}
+
 /** Splits text into lower-case search words: "7BA-STUD-12, brass" → 7ba stud 12 brass. */
 export function searchWords(text: string): string[] {
   return text.toLowerCase().split(/[^a-z0-9./#]+/).map((w) => w.replace(/^[./]+|[./]+$/g, '')).filter(Boolean)

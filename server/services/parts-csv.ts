@@ -2,7 +2,7 @@ import Papa from 'papaparse'
 import type { EntityManager } from 'typeorm'
 import { Movement, Part, StockLot } from '../entities'
 import { db, inTransaction } from '../db'
-import { partsChanged } from './part-search-index'
+import { afterCatalogueWrite } from './part-search-index'
 import { badRequest } from '../errors'
 import { createPart, updatePart } from './parts'
 import { formatProperties, partToInput, rowToPart, type CsvRow } from './part-csv-rows'
@@ -91,25 +91,18 @@ export async function importPartsCsv(raw: CsvImportRequest): Promise<CsvImportRe
     const { planned, errors, rows } = await plan(db().manager, csv)
     return summary(true, rows, planned, errors, false)
   }
-  const written: number[] = []
-  try {
-    return await inTransaction(async (tx) => {
-      const { planned, errors, rows } = await plan(tx, csv)
-      if (errors.length) {
-        throw badRequest('CSV_INVALID', `${errors.length} problem(s) in the file; nothing was imported.`, { errors })
-      }
-      for (const p of planned) {
-        // plan() refused kind changes of stocked parts
-        const part = p.existing ? await updatePart(tx, p.existing, p.input, { kindLocked: false }) : await createPart(tx, p.input)
-        written.push(part.id)
-      }
-      return summary(false, rows, planned, errors, true)
-    })
-  } finally {
-    // Marked inside the transaction too, but a search that ran before the commit (or rollback)
-    // may have cached what it saw then: mark them again now the outcome is settled.
-    if (written.length) partsChanged(written)
-  }
+  return afterCatalogueWrite([], (written) => inTransaction(async (tx) => {
+    const { planned, errors, rows } = await plan(tx, csv)
+    if (errors.length) {
+      throw badRequest('CSV_INVALID', `${errors.length} problem(s) in the file; nothing was imported.`, { errors })
+    }
+    for (const p of planned) {
+      // plan() refused kind changes of stocked parts
+      const part = p.existing ? await updatePart(tx, p.existing, p.input, { kindLocked: false }) : await createPart(tx, p.input)
+      written.push(part.id)
+    }
+    return summary(false, rows, planned, errors, true)
+  }))
 }
 
 const summary = (dryRun: boolean, rows: number, planned: Planned[], errors: CsvRowError[], applied: boolean): CsvImportResult => ({
