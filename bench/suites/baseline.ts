@@ -1,4 +1,4 @@
-import express from 'express'
+import express, { type Express } from 'express'
 import type { AddressInfo } from 'node:net'
 import { percentile, record } from '../harness'
 import { sampler } from '../load'
@@ -17,14 +17,22 @@ export async function latencies(baseUrl: string, path: string, n = SAMPLES, init
   return times
 }
 
+/** Listens on a free port of 127.0.0.1; the address to call and a close that waits for the server to stop. */
+export async function listenLocally(app: Express) {
+  const server = app.listen(0, '127.0.0.1')
+  await new Promise((r) => server.once('listening', r))
+  return {
+    url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`,
+    close: () => new Promise<void>((r) => server.close(() => r())),
+  }
+}
+
 /** A bare Express JSON route: the baseline every route's figures are compared with. */
 export async function startBareServer() {
   const app = express()
   app.get('/bare', (_req, res) => { res.json({ ok: true }) })
   app.post('/bare', express.json(), (req, res) => { res.json({ ok: true, got: req.body }) })
-  const server = app.listen(0, '127.0.0.1')
-  await new Promise((r) => server.once('listening', r))
-  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }
+  return listenLocally(app)
 }
 
 /**
@@ -39,9 +47,7 @@ export async function startSignInStackServer(config: Config) {
   app.use(configurePassport().session())
   app.use(renewSignedInSession)
   app.get('/bare', (req, res) => { res.json({ ok: true, signedIn: Boolean(req.user) }) })
-  const server = app.listen(0, '127.0.0.1')
-  await new Promise((r) => server.once('listening', r))
-  return { url: `http://127.0.0.1:${(server.address() as AddressInfo).port}`, close: () => server.close() }
+  return listenLocally(app)
 }
 
 export const baselineSuite = {
@@ -51,6 +57,6 @@ export const baselineSuite = {
     const t = await latencies(bare.url, '/bare')
     record({ figure: 'bare Express JSON route p50', value: percentile(t, 50), unit: 'ms' })
     record({ figure: 'bare Express JSON route p95', value: percentile(t, 95), unit: 'ms' })
-    bare.close()
+    await bare.close()
   },
 }

@@ -3,41 +3,26 @@
  * signed in through the whole middleware stack, beside the bare Express route of the same run.
  * Also checks that the server gzips the built client's JS (compression of static files).
  */
-import type { AddressInfo } from 'node:net'
 import { readdirSync } from 'node:fs'
 import { percentile, record } from '../harness'
-import { latencies } from './baseline'
+import { latencies, listenLocally } from './baseline'
 import { createTestApp } from '../../tests/helpers/app'
-import { DEMO_USERS } from '../../seeds/demo-users'
+import { rawSession } from '../../tests/helpers/raw-session'
 import { Bin } from '../../server/entities'
 
 /** The issue's goal for the bin read after a scan. */
 const P95_GOAL_MS = 5
 const SAMPLES = 600
 
-async function signIn(base: string, role: string): Promise<string> {
-  const first = await fetch(`${base}/api/auth/session`)
-  const cookie = first.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ')
-  const { csrfToken } = await first.json() as { csrfToken: string }
-  const user = DEMO_USERS.find((u) => u.role === role)!
-  const res = await fetch(`${base}/api/auth/login`, {
-    method: 'POST', headers: { cookie, 'x-csrf-token': csrfToken, 'content-type': 'application/json' },
-    body: JSON.stringify({ username: user.username, password: user.password }),
-  })
-  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`)
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ') || cookie
-}
-
 export const binsSuite = {
   name: 'bin read after a scan: GET /api/bins/:code on the demo workshop',
   async run() {
     const clientDir = process.env.CLIENT_DIR ?? 'dist/client'
     const t = await createTestApp({ demo: true, config: { CLIENT_DIR: clientDir } })
-    const server = t.app.listen(0, '127.0.0.1')
-    await new Promise((r) => server.once('listening', r))
-    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
+    const server = await listenLocally(t.app)
+    const base = server.url
     try {
-      const headers = { cookie: await signIn(base, 'builder') }
+      const headers = { cookie: (await rawSession(base, 'builder')).cookie }
       const bins = (await t.dataSource.getRepository(Bin).find({ where: { retired: false } })).slice(0, 20)
       // By human code and by label code, as the scan page and a phone camera ask.
       const paths = bins.flatMap((b) => [`/api/bins/${b.code}`, `/api/bins/${b.labelCode}`])
@@ -61,7 +46,7 @@ export const binsSuite = {
         record({ figure: 'entry JS served gzip-compressed and cached as immutable', value: gz && immutable ? 1 : 0, unit: 'yes=1', goal: '= 1', pass: gz && immutable })
       }
     } finally {
-      server.close()
+      await server.close()
       await t.close()
     }
   },

@@ -7,16 +7,15 @@
  * is a ratio to a bare Express JSON route, with autocannon in its own process (bench/load.ts),
  * the same connections and duration, in the same run.
  */
-import type { AddressInfo } from 'node:net'
 import { setFlagsFromString } from 'node:v8'
 import { runInNewContext } from 'node:vm'
 import { percentile, record } from '../harness'
 import { cannon as runLoad } from '../load'
-import { latencies, startBareServer, startSignInStackServer } from './baseline'
+import { latencies, listenLocally, startBareServer, startSignInStackServer } from './baseline'
 import { seedCatalogue } from './parts-catalogue'
 import { QUERY_MIX, distinctQueries } from './parts-queries'
 import { createTestApp } from '../../tests/helpers/app'
-import { DEMO_USERS } from '../../seeds/demo-users'
+import { rawSession } from '../../tests/helpers/raw-session'
 import { clearSearchCache } from '../../server/services/part-search-cache'
 
 const PARTS = 50_000
@@ -48,20 +47,6 @@ function mixedPaths(n: number, fresh: string[]): string[] {
     : mixPaths[(i - Math.floor(i / (REPEATS_PER_NEW + 1))) % mixPaths.length])
 }
 
-/** Signs in over HTTP as the storekeeper and returns the session cookie. */
-async function signIn(base: string): Promise<string> {
-  const first = await fetch(`${base}/api/auth/session`)
-  const cookie = first.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ')
-  const { csrfToken } = await first.json()
-  const user = DEMO_USERS.find((u) => u.role === 'storekeeper')!
-  const res = await fetch(`${base}/api/auth/login`, {
-    method: 'POST', headers: { cookie, 'x-csrf-token': csrfToken, 'content-type': 'application/json' },
-    body: JSON.stringify({ username: user.username, password: user.password }),
-  })
-  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`)
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ') || cookie
-}
-
 async function sample(base: string, paths: string[], headers: Record<string, string>, before?: () => void) {
   const times: number[] = []
   for (const p of paths) {
@@ -89,15 +74,14 @@ export const partsSearchSuite = {
   name: `parts search: GET /api/parts?q= over ${PARTS.toLocaleString('en-GB')} parts`,
   async run() {
     const t = await createTestApp()
-    const server = t.app.listen(0, '127.0.0.1')
-    await new Promise((r) => server.once('listening', r))
-    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
+    const server = await listenLocally(t.app)
+    const base = server.url
     const bare = await startBareServer()
     const signInStack = await startSignInStackServer(t.config)
     const fresh = distinctQueries()
     try {
       record({ figure: `seed ${PARTS} parts in one transaction`, value: await seedCatalogue(t.dataSource, PARTS), unit: 'ms' })
-      const headers = { cookie: await signIn(base) }
+      const headers = { cookie: (await rawSession(base, 'keeper')).cookie }
       const t0 = performance.now()
       await fetch(`${base}/api/parts?q=whistle`, { headers }) // the first text query builds the word index
       record({ figure: 'first text search (builds the word index)', value: performance.now() - t0, unit: 'ms' })
@@ -140,9 +124,7 @@ export const partsSearchSuite = {
       fullGc()
       record({ figure: 'JS heap in use after a full garbage collection', value: process.memoryUsage().heapUsed / MIB, unit: 'MiB' })
     } finally {
-      bare.close()
-      signInStack.close()
-      server.close()
+      await Promise.all([bare.close(), signInStack.close(), server.close()])
       await t.close()
     }
   },

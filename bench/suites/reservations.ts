@@ -1,7 +1,6 @@
-import type { AddressInfo } from 'node:net'
 import { percentile, record, round } from '../harness'
 import { createTestApp } from '../../tests/helpers/app'
-import { signInRaw } from '../../tests/helpers/raw-session'
+import { rawPoster, rawSession } from '../../tests/helpers/raw-session'
 import { inTransaction } from '../../server/db'
 import { Bin, BuildLine, Rack, Reservation, Workshop } from '../../server/entities'
 import { createPart } from '../../server/services/parts'
@@ -9,8 +8,7 @@ import { receiveInto } from '../../server/services/stock'
 import { stockTotalsOf } from '../../server/services/stock-totals'
 import { checkLedger } from '../../server/services/ledger-check'
 import { burst } from '../load'
-import { startBareServer } from './baseline'
-import { DEMO_USERS } from '../../seeds/demo-users'
+import { listenLocally, startBareServer } from './baseline'
 
 /** The issue's goal: 200 concurrent reservation requests against 50 in stock grant exactly 50. */
 const REQUESTS = 200
@@ -21,21 +19,8 @@ const RATE_GOAL = 500
 /** Measured races after the warm-up; the rate reported is their median. */
 const RACES = 5
 
-/** A session cookie and CSRF token for `username`, for the burst client in its own process. */
-async function session(base: string, username: string) {
-  const first = await fetch(`${base}/api/auth/session`)
-  const cookie = first.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ')
-  const { csrfToken } = await first.json() as { csrfToken: string }
-  const password = DEMO_USERS.find((u) => u.username === username)!.password
-  const res = await fetch(`${base}/api/auth/login`, {
-    method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie }, body: JSON.stringify({ username, password }),
-  })
-  const { csrfToken: token } = await res.json() as { csrfToken: string }
-  return { cookie: res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ') || cookie, token }
-}
-
 /** What one race needs: a part with IN_STOCK on hand and REQUESTS build lines of it asking for 1 each. */
-async function setUpRace(round: number, base: string, post: Awaited<ReturnType<typeof signInRaw>>, t: Awaited<ReturnType<typeof createTestApp>>) {
+async function setUpRace(round: number, base: string, post: ReturnType<typeof rawPoster>, t: Awaited<ReturnType<typeof createTestApp>>) {
   const part = await inTransaction(async (tx) => {
     const w = await tx.save(Workshop, { name: `Bench workshop ${round}` })
     const rack = await tx.save(Rack, { code: `Z${round}`, name: 'Bench rack', workshopId: w.id })
@@ -65,13 +50,12 @@ export const reservationsSuite = {
   name: `reservations: ${REQUESTS} concurrent requests against ${IN_STOCK} in stock`,
   async run() {
     const t = await createTestApp()
-    const server = t.app.listen(0, '127.0.0.1')
-    await new Promise((r) => server.once('listening', r))
+    const server = await listenLocally(t.app)
     const bare = await startBareServer()
     try {
-      const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
-      const post = await signInRaw(base, 'builder')
-      const builder = await session(base, 'builder')
+      const base = server.url
+      const builder = await rawSession(base, 'builder')
+      const post = rawPoster(base, builder)
       const races: { granted: number; refused: number; oversold: number; rate: number; bareRate: number; latencies: number[] }[] = []
       for (let n = 0; n <= RACES; n++) {
         const { part, lines } = await setUpRace(n, base, post, t)
@@ -108,8 +92,7 @@ export const reservationsSuite = {
       record({ figure: 'reservation request latency p95 (all in flight at once)', value: percentile(all, 95), unit: 'ms' })
       record({ figure: 'ledger differences after the races', value: ledger.differences.length, unit: 'lots', goal: '= 0', pass: ledger.differences.length === 0 })
     } finally {
-      bare.close()
-      await new Promise((r) => server.close(r))
+      await Promise.all([bare.close(), server.close()])
       await t.close()
     }
   },
