@@ -1,12 +1,12 @@
 import { z } from 'zod'
 
+/** What a PostgreSQL address starts with (DATABASE_URL); anything else is a SQLite file path. */
+export const POSTGRES_URL = /^postgres(ql)?:\/\//
+
 /**
  * Every setting the server reads from the environment, with its default.
  * This is the only module that reads process.env.
  */
-/** What a PostgreSQL address starts with (DATABASE_URL); anything else is a SQLite file path. */
-export const POSTGRES_URL = /^postgres(ql)?:\/\//
-
 const envSchema = z.object({
   /** Port for the API and the built client. */
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
